@@ -1,0 +1,4 @@
+// Plain `tsc` (unit/tsconfig.json checks renderer/**/*.ts too) needs the rune declarations and a
+// module type for `.svelte` files; svelte-check resolves the real components and ignores this.
+/// <reference types="svelte" />
+/// <reference types="vite/client" />

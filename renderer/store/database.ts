@@ -1,0 +1,47 @@
+import { Dexie, type EntityTable } from 'dexie';
+import type {
+  EarthOrientationRecord,
+  ImportRecord,
+  InstrumentEventRecord,
+  InstrumentRecord,
+  LeapSecondRecord,
+  NightRecord,
+  ReductionRecord,
+  SiteRecord,
+  StarRecord,
+  TransitRecord,
+} from '../../core/archive/records.ts';
+import { SCHEMA_V1 } from './schemaV1.ts';
+
+/** Name of the IndexedDB database that holds the user's archive in this browser profile. */
+export const ARCHIVE_DATABASE_NAME = 'meridian-ledger-archive';
+
+/** The newest schema version this build knows; opening a newer database fails with a VersionError. */
+export const ARCHIVE_SCHEMA_VERSION = 1;
+
+/**
+ * The archive database (DESIGN.md §3), one typed table per record kind.
+ *
+ * Versions are appended, never edited: version 1 is SCHEMA_V1; a version 2 adds
+ * `this.version(2).stores(SCHEMA_V2).upgrade(tx => ...)` below it, and tests open a version-1
+ * database with the new code to prove the upgrade. Inside a transaction await only the database:
+ * compute first, then write.
+ */
+export class ArchiveDatabase extends Dexie {
+  sites!: EntityTable<SiteRecord, 'id'>;
+  instruments!: EntityTable<InstrumentRecord, 'id'>;
+  instrumentEvents!: EntityTable<InstrumentEventRecord, 'id'>;
+  stars!: EntityTable<StarRecord, 'id'>;
+  nights!: EntityTable<NightRecord, 'id'>;
+  transits!: EntityTable<TransitRecord, 'id'>;
+  earthOrientation!: EntityTable<EarthOrientationRecord, 'mjd'>;
+  leapSeconds!: EntityTable<LeapSecondRecord, 'mjd'>;
+  reductions!: EntityTable<ReductionRecord, 'id'>;
+  imports!: EntityTable<ImportRecord, 'id'>;
+
+  /** `name` is ARCHIVE_DATABASE_NAME in the app; tests pass a unique name each. */
+  constructor(name: string = ARCHIVE_DATABASE_NAME) {
+    super(name);
+    this.version(1).stores(SCHEMA_V1);
+  }
+}
