@@ -1,0 +1,37 @@
+/**
+ * JSON for archive rows that round-trips every value bit-exactly. Finite doubles already do
+ * (JSON.stringify writes the shortest text that parses back to the same double, ECMA-262
+ * Number::toString); the values JSON cannot hold — −0, NaN, ±Infinity — are written as
+ * `{"$number": "-0"}` and so on, and turned back on reading.
+ */
+const SPECIAL_KEY = '$number';
+
+function encodeValue(_key: string, value: unknown): unknown {
+  if (typeof value === 'number' && (!Number.isFinite(value) || Object.is(value, -0))) {
+    return { [SPECIAL_KEY]: Object.is(value, -0) ? '-0' : String(value) };
+  }
+  return value;
+}
+
+const SPECIAL_VALUES: Record<string, number> = { '-0': -0, NaN: Number.NaN, Infinity: Number.POSITIVE_INFINITY, '-Infinity': Number.NEGATIVE_INFINITY };
+
+function decodeValue(_key: string, value: unknown): unknown {
+  if (typeof value === 'object' && value !== null && !Array.isArray(value)) {
+    const keys = Object.keys(value);
+    if (keys.length === 1 && keys[0] === SPECIAL_KEY) {
+      const text = (value as Record<string, unknown>)[SPECIAL_KEY];
+      if (typeof text === 'string' && text in SPECIAL_VALUES) return SPECIAL_VALUES[text];
+      throw new SyntaxError(`unknown special number ${JSON.stringify(text)}`);
+    }
+  }
+  return value;
+}
+
+/** One row as one line of JSON (no newline inside: JSON.stringify escapes control characters). */
+export function rowToJsonLine(row: unknown): string {
+  return JSON.stringify(row, encodeValue);
+}
+
+export function jsonLineToRow(line: string): unknown {
+  return JSON.parse(line, decodeValue);
+}

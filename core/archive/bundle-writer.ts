@@ -1,0 +1,67 @@
+import { BUNDLE_FORMAT, BUNDLE_FORMAT_VERSION, BundleError, type BundleHeader, type BundleTableSummary, TABLE_NAME_PATTERN } from './bundle-format.ts';
+import { rowToJsonLine } from './bundle-values.ts';
+import { Sha256 } from './sha256.ts';
+import { encodeUtf8 } from '../text/utf8-encode.ts';
+
+/**
+ * Writes a bundle as a sequence of lines (each returned string ends with "\n"); the caller
+ * compresses and stores them. Tables are written one after another, each once.
+ */
+export class BundleWriter {
+  private readonly summaries: BundleTableSummary[] = [];
+  private current: { name: string; rows: number; hash: Sha256 } | null = null;
+  private lines = 0;
+  private closed = false;
+
+  constructor(private readonly header: Omit<BundleHeader, 'format' | 'formatVersion'>) {}
+
+  start(): string {
+    if (this.lines !== 0) throw new BundleError('BundleWriter.start: already started', null);
+    return this.emit(JSON.stringify({ format: BUNDLE_FORMAT, formatVersion: BUNDLE_FORMAT_VERSION, ...this.header }));
+  }
+
+  beginTable(name: string): string {
+    this.requireOpen();
+    if (!TABLE_NAME_PATTERN.test(name)) throw new BundleError(`table name "${name}" is not allowed (letters, digits, dashes)`, null);
+    if (this.summaries.some((s) => s.name === name) || this.current?.name === name) {
+      throw new BundleError(`table "${name}" was already written`, null);
+    }
+    this.endTable();
+    this.current = { name, rows: 0, hash: new Sha256() };
+    return this.emit(JSON.stringify({ $table: name }));
+  }
+
+  row(row: unknown): string {
+    this.requireOpen();
+    if (this.current === null) throw new BundleError('BundleWriter.row: call beginTable first', null);
+    const line = this.emit(rowToJsonLine(row));
+    this.current.hash.update(encodeUtf8(line));
+    this.current.rows++;
+    return line;
+  }
+
+  /** The closing manifest line; the writer cannot be used after it. */
+  finish(): string {
+    this.requireOpen();
+    this.endTable();
+    this.closed = true;
+    return this.emit(JSON.stringify({ $manifest: { tables: this.summaries, lines: this.lines + 1 } }));
+  }
+
+  private endTable(): void {
+    if (this.current !== null) {
+      this.summaries.push({ name: this.current.name, rows: this.current.rows, sha256: this.current.hash.hex() });
+      this.current = null;
+    }
+  }
+
+  private requireOpen(): void {
+    if (this.lines === 0) throw new BundleError('BundleWriter: call start first', null);
+    if (this.closed) throw new BundleError('BundleWriter: the bundle is already finished', null);
+  }
+
+  private emit(text: string): string {
+    this.lines++;
+    return `${text}\n`;
+  }
+}
