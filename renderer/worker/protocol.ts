@@ -1,0 +1,52 @@
+import type { EclipticFieldRequest, EclipticFieldResult } from './tasks/eclipticField.ts';
+
+/**
+ * The messages between the renderer and the compute worker. Hand-written discriminated unions:
+ * `type` says what a message is; `jobId` ties every answer to the request that caused it.
+ */
+
+/** What a job computes; one member per task the worker knows. */
+export type TaskRequest = EclipticFieldRequest;
+export type TaskResult = EclipticFieldResult;
+export type TaskKind = TaskRequest['kind'];
+
+export type ToWorker =
+  | { readonly type: 'start'; readonly jobId: string; readonly request: TaskRequest }
+  | { readonly type: 'cancel'; readonly jobId: string };
+
+export type FromWorker =
+  | { readonly type: 'progress'; readonly jobId: string; readonly done: number; readonly total: number }
+  | { readonly type: 'finished'; readonly jobId: string; readonly result: TaskResult }
+  | { readonly type: 'cancelled'; readonly jobId: string; readonly done: number }
+  | { readonly type: 'failed'; readonly jobId: string; readonly message: string };
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null;
+}
+
+/**
+ * Checks a message received by the worker; returns it typed, or a sentence saying what is wrong.
+ * Only the shape is checked here; each task checks its own parameters.
+ */
+export function parseToWorker(message: unknown): ToWorker | string {
+  if (!isRecord(message)) return `worker message must be an object, got ${typeof message}`;
+  if (typeof message.jobId !== 'string' || message.jobId === '') {
+    return 'worker message needs a non-empty string jobId';
+  }
+  if (message.type === 'cancel') return { type: 'cancel', jobId: message.jobId };
+  if (message.type !== 'start') {
+    return `worker message type must be "start" or "cancel", got ${JSON.stringify(message.type)}`;
+  }
+  const request = message.request;
+  if (!isRecord(request) || typeof request.kind !== 'string') {
+    return `start message for job ${message.jobId} needs a request with a kind`;
+  }
+  if (request.kind === 'ecliptic-field') {
+    return {
+      type: 'start',
+      jobId: message.jobId,
+      request: { kind: 'ecliptic-field', starCount: Number(request.starCount), seed: Number(request.seed) },
+    };
+  }
+  return `start message for job ${message.jobId}: unknown task kind ${JSON.stringify(request.kind)}`;
+}
