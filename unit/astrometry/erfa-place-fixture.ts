@@ -14,6 +14,7 @@ export interface FixtureObserved { hourAngleRad: number; declinationRad: number;
 export interface PlaceCase {
   kind: string; star: FixtureStar; site: FixtureSite; eop: FixtureEop; weather: Weather | null;
   time: FixtureTime; apparent: { raRad: number; decRad: number };
+  orientation: { npb: number[]; gastRad: number; polarMotion: number[]; frameBias: number[] };
   observedNoRefraction: FixtureObserved; observed: FixtureObserved;
 }
 export interface TransitCase {
