@@ -2,3 +2,6 @@
 // module type for `.svelte` files; svelte-check resolves the real components and ignores this.
 /// <reference types="svelte" />
 /// <reference types="vite/client" />
+
+/** The package version, put in by renderer/vite.config.ts at build time. */
+declare const __APP_VERSION__: string;

@@ -1,0 +1,33 @@
+import './styles/themes.css';
+import './styles/base.css';
+import { mount } from 'svelte';
+import App from './App.svelte';
+import { ViewRouter } from './navigation/router.svelte.ts';
+import { ThemeState } from './theme/themeState.svelte.ts';
+import { ArchiveState } from './app/archiveState.svelte.ts';
+import { ComputeClient } from './worker/computeClient.ts';
+import { selectBridge } from './bridge/selectBridge.ts';
+
+function localStorageOrNull(): Storage | null {
+  try {
+    return window.localStorage;
+  } catch {
+    return null; // blocked by privacy settings: the theme then lasts for this session only
+  }
+}
+
+const target = document.getElementById('app');
+if (target === null) throw new Error('index.html lacks <div id="app">; the renderer cannot start.');
+
+const themeState = new ThemeState({
+  storage: localStorageOrNull(),
+  apply: (theme) => document.documentElement.setAttribute('data-theme', theme),
+});
+const router = new ViewRouter(window);
+const archive = new ArchiveState();
+void archive.start(navigator.storage);
+const worker = new Worker(new URL('./worker/compute.worker.ts', import.meta.url), { type: 'module' });
+const compute = new ComputeClient(worker);
+const bridge = selectBridge(window, __APP_VERSION__);
+
+mount(App, { target, props: { router, themeState, archive, compute, bridge } });
