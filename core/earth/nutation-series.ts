@@ -1,0 +1,137 @@
+/**
+ * Nutation in longitude Δψ and in obliquity Δε, referred to the mean equator and equinox of date.
+ *
+ *  - nutation00a: IAU 2000A (MHB2000; IERS Conventions 2010 ch. 5.5.4, tables 5.3a/5.3b), all 678
+ *    luni-solar and 687 planetary terms. Matches IAU SOFA nut00a to rounding (≪ 1 µas).
+ *  - nutation06a: IAU 2000A with the IAU 2006 adjustments of Wallace & Capitaine (2006, A&A 459,
+ *    981, eqs. 5): Δψ·(1 + 0.4697e−6 + f), Δε·(1 + f), f = −2.7774e−6·t. The one to use with the
+ *    IAU 2006 precession (biasPrecessionNutationMatrix06, gast06).
+ *  - nutation00b: IAU 2000B (McCarthy & Luzum 2003, Celest. Mech. 85, 37): the 77 largest
+ *    luni-solar terms with linear Delaunay arguments, plus fixed offsets −0.135 mas in Δψ and
+ *    +0.388 mas in Δε in place of the planetary terms. Moves the pole within 1 mas of 2000A
+ *    (Δψ sin ε and Δε) over 1995–2050; Δψ itself differs by up to 2.5 mas.
+ *
+ * Input: TT as a two-part JD. Output: radians. Accuracy of IAU 2000A against VLBI: about 0.2 mas
+ * (free core nutation not modelled; it is in the IERS dX, dY).
+ * The loops read typed arrays and allocate nothing but the returned object.
+ */
+import { julianCenturiesSinceJ2000, type JulianDate } from '../time/julian-date.ts';
+import { ARCSEC, MAS, TAU } from '../units.ts';
+import * as arg from './fundamental-arguments.ts';
+import {
+  LUNISOLAR_2000B_TERM_COUNT,
+  LUNISOLAR_AMPLITUDES,
+  LUNISOLAR_MULTIPLIERS,
+  LUNISOLAR_TERM_COUNT,
+  PLANETARY_AMPLITUDES,
+  PLANETARY_MULTIPLIERS,
+  PLANETARY_TERM_COUNT,
+} from './nutation-2000a-terms.ts';
+
+/** Nutation angles in radians: Δψ in longitude, Δε in obliquity (mean → true equator of date). */
+export interface Nutation {
+  readonly dpsiRad: number;
+  readonly depsRad: number;
+}
+
+/** 0.1 µas in radians: the unit of the published amplitudes. */
+const TENTH_MICROARCSEC = ARCSEC / 1e7;
+
+/** Luni-solar sums (in 0.1 µas) of the first `termCount` terms at Delaunay arguments l…Ω. */
+function lunisolarSum(
+  t: number, termCount: number, l: number, lp: number, f: number, d: number, om: number, out: Float64Array,
+): void {
+  let dpsi = 0;
+  let deps = 0;
+  for (let i = termCount - 1; i >= 0; i--) {
+    const m = 5 * i;
+    const angle =
+      LUNISOLAR_MULTIPLIERS[m] * l + LUNISOLAR_MULTIPLIERS[m + 1] * lp + LUNISOLAR_MULTIPLIERS[m + 2] * f +
+      LUNISOLAR_MULTIPLIERS[m + 3] * d + LUNISOLAR_MULTIPLIERS[m + 4] * om;
+    const s = Math.sin(angle);
+    const c = Math.cos(angle);
+    const a = 6 * i;
+    dpsi += (LUNISOLAR_AMPLITUDES[a] + LUNISOLAR_AMPLITUDES[a + 1] * t) * s + LUNISOLAR_AMPLITUDES[a + 2] * c;
+    deps += (LUNISOLAR_AMPLITUDES[a + 3] + LUNISOLAR_AMPLITUDES[a + 4] * t) * c + LUNISOLAR_AMPLITUDES[a + 5] * s;
+  }
+  out[0] = dpsi;
+  out[1] = deps;
+}
+
+const planetaryArguments = new Float64Array(13);
+const sums = new Float64Array(2);
+
+/** Planetary sums (in 0.1 µas); arguments as in MHB2000 (see the IAU SOFA nut00a notes). */
+function planetarySum(t: number, out: Float64Array): void {
+  const p = planetaryArguments;
+  p[0] = (2.35555598 + 8328.6914269554 * t) % TAU; // l, MHB2000
+  p[1] = (1.627905234 + 8433.466158131 * t) % TAU; // F, MHB2000
+  p[2] = (5.198466741 + 7771.3771468121 * t) % TAU; // D, MHB2000
+  p[3] = (2.1824392 - 33.757045 * t) % TAU; // Ω, MHB2000
+  p[4] = arg.meanLongitudeMercury(t);
+  p[5] = arg.meanLongitudeVenus(t);
+  p[6] = arg.meanLongitudeEarth(t);
+  p[7] = arg.meanLongitudeMars(t);
+  p[8] = arg.meanLongitudeJupiter(t);
+  p[9] = arg.meanLongitudeSaturn(t);
+  p[10] = arg.meanLongitudeUranus(t);
+  p[11] = (5.321159 + 3.8127774 * t) % TAU; // Neptune, MHB2000
+  p[12] = arg.generalPrecessionInLongitude(t);
+  let dpsi = 0;
+  let deps = 0;
+  for (let i = PLANETARY_TERM_COUNT - 1; i >= 0; i--) {
+    const m = 13 * i;
+    let angle = 0;
+    for (let k = 0; k < 13; k++) {
+      const multiplier = PLANETARY_MULTIPLIERS[m + k];
+      if (multiplier !== 0) angle += multiplier * p[k];
+    }
+    const s = Math.sin(angle);
+    const c = Math.cos(angle);
+    const a = 4 * i;
+    dpsi += PLANETARY_AMPLITUDES[a] * s + PLANETARY_AMPLITUDES[a + 1] * c;
+    deps += PLANETARY_AMPLITUDES[a + 2] * s + PLANETARY_AMPLITUDES[a + 3] * c;
+  }
+  out[0] = dpsi;
+  out[1] = deps;
+}
+
+/** IAU 2000A nutation at TT `tt` (full series; see the file header). */
+export function nutation00a(tt: JulianDate): Nutation {
+  const t = julianCenturiesSinceJ2000(tt);
+  lunisolarSum(
+    t, LUNISOLAR_TERM_COUNT, arg.meanAnomalyMoon(t), arg.meanAnomalySunMhb2000(t),
+    arg.meanArgumentOfLatitudeMoon(t), arg.meanElongationMoonMhb2000(t), arg.meanLongitudeMoonNode(t), sums,
+  );
+  const dpsiLunisolar = sums[0];
+  const depsLunisolar = sums[1];
+  planetarySum(t, sums);
+  return {
+    dpsiRad: dpsiLunisolar * TENTH_MICROARCSEC + sums[0] * TENTH_MICROARCSEC,
+    depsRad: depsLunisolar * TENTH_MICROARCSEC + sums[1] * TENTH_MICROARCSEC,
+  };
+}
+
+/** IAU 2000A nutation with the IAU 2006 (P03) adjustments, at TT `tt` (see the file header). */
+export function nutation06a(tt: JulianDate): Nutation {
+  const t = julianCenturiesSinceJ2000(tt);
+  const secularJ2 = -2.7774e-6 * t;
+  const n = nutation00a(tt);
+  return { dpsiRad: n.dpsiRad + n.dpsiRad * (0.4697e-6 + secularJ2), depsRad: n.depsRad + n.depsRad * secularJ2 };
+}
+
+/** IAU 2000B nutation at TT `tt` (77 terms plus fixed offsets; see the file header). */
+export function nutation00b(tt: JulianDate): Nutation {
+  const t = julianCenturiesSinceJ2000(tt);
+  // Linear Delaunay arguments of Simon et al. (1994), as IAU 2000B prescribes.
+  const l = ((485868.249036 + 1717915923.2178 * t) % 1296000) * ARCSEC;
+  const lp = ((1287104.79305 + 129596581.0481 * t) % 1296000) * ARCSEC;
+  const f = ((335779.526232 + 1739527262.8478 * t) % 1296000) * ARCSEC;
+  const d = ((1072260.70369 + 1602961601.209 * t) % 1296000) * ARCSEC;
+  const om = ((450160.398036 - 6962890.5431 * t) % 1296000) * ARCSEC;
+  lunisolarSum(t, LUNISOLAR_2000B_TERM_COUNT, l, lp, f, d, om, sums);
+  return {
+    dpsiRad: sums[0] * TENTH_MICROARCSEC - 0.135 * MAS,
+    depsRad: sums[1] * TENTH_MICROARCSEC + 0.388 * MAS,
+  };
+}
