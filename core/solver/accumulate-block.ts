@@ -1,0 +1,139 @@
+import type { BlockWorkspace } from './block-workspace.ts';
+import type { PreparedProblem } from './prepared-problem.ts';
+import { symmetricGeneralisedInverse } from './small-inverse.ts';
+
+/**
+ * Forms block `block`'s normal equations in `ws` from its rows with weights `weight` (1/σ² times
+ * the robust factor), adds its local priors, pins its fixed locals, and computes A⁻¹, G = A⁻¹N_lt,
+ * y = A⁻¹b_l and H = A⁻¹cᵀ for its constraint terms. With `withTouched` it also forms N_tt and
+ * b_t (needed for the reduction, not for back-substitution). Cost: Σ over the block's rows of
+ * (terms per row)², plus l²·t for G. Sums are plain: a block holds few rows (≤ ~10³), so the
+ * rounding error stays near 10³·ε; the large sums over blocks are compensated elsewhere.
+ */
+export function accumulateBlock(
+  prep: PreparedProblem, block: number, weight: Float64Array, ws: BlockWorkspace, withTouched: boolean,
+): void {
+  const rows = prep.rows;
+  const { order, groupStart, globalFixed, localFixed, effectiveResidual } = prep;
+  const first = groupStart[block];
+  const end = groupStart[block + 1];
+  const l = block < prep.blockCount ? prep.localOffset[block + 1] - prep.localOffset[block] : 0;
+  const localBase = block < prep.blockCount ? prep.localOffset[block] : 0;
+  ws.localCount = l;
+  const stampValue = ++ws.currentStamp;
+  let t = 0;
+  for (let i = first; i < end; i++) {
+    const k = order[i];
+    for (let p = rows.globalStart[k]; p < rows.globalStart[k + 1]; p++) {
+      const g = rows.globalIndex[p];
+      if (globalFixed[g] || ws.stamp[g] === stampValue) continue;
+      ws.stamp[g] = stampValue;
+      ws.position[g] = t;
+      ws.touched[t++] = g;
+    }
+  }
+  ws.touchedCount = t;
+  ws.reserve(t);
+  const A = ws.normalLocal;
+  const Nlt = ws.normalLocalTouched;
+  const Ntt = ws.normalTouched;
+  const bl = ws.rhsLocal;
+  const bt = ws.rhsTouched;
+  A.fill(0, 0, l * l);
+  bl.fill(0, 0, l);
+  Nlt.fill(0, 0, l * t);
+  if (withTouched) {
+    Ntt.fill(0, 0, t * t);
+    bt.fill(0, 0, t);
+  }
+  for (let i = first; i < end; i++) {
+    const k = order[i];
+    const w = weight[k];
+    if (w === 0) continue;
+    const r = effectiveResidual[k];
+    const g0 = rows.globalStart[k];
+    const g1 = rows.globalStart[k + 1];
+    const l0 = rows.localStart[k];
+    const l1 = rows.localStart[k + 1];
+    for (let p = l0; p < l1; p++) {
+      const li = rows.localIndex[p];
+      if (localFixed[localBase + li]) continue;
+      const wa = w * rows.localPartial[p];
+      bl[li] += wa * r;
+      for (let q = l0; q < l1; q++) {
+        const lj = rows.localIndex[q];
+        if (!localFixed[localBase + lj]) A[li * l + lj] += wa * rows.localPartial[q];
+      }
+      for (let q = g0; q < g1; q++) {
+        const g = rows.globalIndex[q];
+        if (!globalFixed[g]) Nlt[li * t + ws.position[g]] += wa * rows.globalPartial[q];
+      }
+    }
+    if (!withTouched) continue;
+    for (let p = g0; p < g1; p++) {
+      const gi = rows.globalIndex[p];
+      if (globalFixed[gi]) continue;
+      const wa = w * rows.globalPartial[p];
+      const ti = ws.position[gi];
+      bt[ti] += wa * r;
+      for (let q = g0; q < g1; q++) {
+        const gj = rows.globalIndex[q];
+        if (!globalFixed[gj]) Ntt[ti * t + ws.position[gj]] += wa * rows.globalPartial[q];
+      }
+    }
+  }
+  finishBlock(prep, block, l, localBase, ws);
+}
+
+function finishBlock(prep: PreparedProblem, block: number, l: number, localBase: number, ws: BlockWorkspace): void {
+  const A = ws.normalLocal;
+  const bl = ws.rhsLocal;
+  const t = ws.touchedCount;
+  for (let i = 0; i < l; i++) {
+    const at = localBase + i;
+    if (prep.localFixed[at]) {
+      A[i * l + i] = 1; // the correction stays at 0; the fixed value is in the residuals
+      continue;
+    }
+    A[i * l + i] += prep.localPriorWeight[at];
+    bl[i] += prep.localPriorWeightedValue[at];
+  }
+  ws.dropped = l > 0 ? symmetricGeneralisedInverse(A, l, ws.inverseLocal) : [];
+  for (let i = 0; i < l; i++) if (prep.localFixed[localBase + i]) ws.inverseLocal[i * l + i] = 0;
+  const Ainv = ws.inverseLocal;
+  const G = ws.gain;
+  const Nlt = ws.normalLocalTouched;
+  for (let i = 0; i < l; i++) {
+    let sum = 0;
+    for (let j = 0; j < l; j++) sum += Ainv[i * l + j] * bl[j];
+    ws.solvedLocal[i] = sum;
+    for (let c = 0; c < t; c++) {
+      let gain = 0;
+      for (let j = 0; j < l; j++) gain += Ainv[i * l + j] * Nlt[j * t + c];
+      G[i * t + c] = gain;
+    }
+  }
+  ws.constraintCount = 0;
+  if (block >= prep.blockCount) return;
+  const from = prep.blockConstraintStart[block];
+  const to = prep.blockConstraintStart[block + 1];
+  const m = ws.maxLocals;
+  for (let e = from; e < to; e++) {
+    const constraint = prep.blockConstraintIndex[e];
+    let slot = -1;
+    for (let s = 0; s < ws.constraintCount; s++) if (ws.constraintIndex[s] === constraint) slot = s;
+    if (slot < 0) {
+      slot = ws.constraintCount++;
+      ws.constraintIndex[slot] = constraint;
+      ws.constraintRow.fill(0, slot * m, slot * m + m);
+    }
+    ws.constraintRow[slot * m + prep.blockConstraintLocal[e]] += prep.blockConstraintCoefficient[e];
+  }
+  for (let s = 0; s < ws.constraintCount; s++) {
+    for (let i = 0; i < l; i++) {
+      let sum = 0;
+      for (let j = 0; j < l; j++) sum += Ainv[i * l + j] * ws.constraintRow[s * m + j];
+      ws.constraintGain[s * m + i] = sum;
+    }
+  }
+}

@@ -1,0 +1,153 @@
+import { accumulateBlock } from './accumulate-block.ts';
+import type { BlockWorkspace } from './block-workspace.ts';
+import type { PreparedProblem } from './prepared-problem.ts';
+import type { GlobalSolution } from './solve-globals.ts';
+
+/** Locals, their per-block covariances, post-fit residuals and leverages (all a-priori scale). */
+export interface BackSubstitution {
+  /** Local corrections, flat by PreparedProblem.localOffset (fixed locals read 0 here). */
+  readonly localEstimate: Float64Array;
+  /** Block b's l×l covariance at localCovariance[covarianceOffset[b] …], row-major. */
+  readonly localCovariance: Float64Array;
+  readonly covarianceOffset: Int32Array;
+  /** v = (O−C) − partials·corrections, per row. */
+  readonly residual: Float64Array;
+  /** h_k = w_k·Var(partials·corrections): the diagonal of the hat matrix. */
+  readonly leverage: Float64Array;
+}
+
+/**
+ * Recovers each block's locals l = y − G·g_t − H·λ and their covariance
+ *   Cov(l) = A⁻¹ + Z·Q·Zᵀ − H·E⁻¹·Hᵀ,  Cov(l, g) = −Z·Q,  Z = G + H·Fᵀ
+ * (block inverse of the bordered normal matrix; Golub & Van Loan §3.2, Schur complements),
+ * then each row's residual and leverage. Cost per block l·t² (the G·Q_tt product) + rows.
+ */
+export function backSubstitute(
+  prep: PreparedProblem, weight: Float64Array, ws: BlockWorkspace, solution: GlobalSolution,
+  onBlock: (done: number, total: number) => void,
+): BackSubstitution {
+  const n = prep.globalCount;
+  const rows = prep.rows;
+  const covarianceOffset = new Int32Array(prep.blockCount + 1);
+  for (let b = 0; b < prep.blockCount; b++) {
+    const l = prep.localOffset[b + 1] - prep.localOffset[b];
+    covarianceOffset[b + 1] = covarianceOffset[b] + l * l;
+  }
+  const out: BackSubstitution = {
+    localEstimate: new Float64Array(prep.localOffset[prep.blockCount]),
+    localCovariance: new Float64Array(covarianceOffset[prep.blockCount]),
+    covarianceOffset,
+    residual: new Float64Array(rows.count),
+    leverage: new Float64Array(rows.count),
+  };
+  let cross = new Float64Array(64);
+  const total = prep.blockCount + 1;
+  for (let block = 0; block < total; block++) {
+    if ((block & 255) === 0) onBlock(block, total);
+    accumulateBlock(prep, block, weight, ws, false);
+    const l = ws.localCount;
+    const t = ws.touchedCount;
+    if (cross.length < l * t) cross = new Float64Array(l * t * 2);
+    const local = out.localEstimate.subarray(block < prep.blockCount ? prep.localOffset[block] : 0);
+    const covariance = out.localCovariance.subarray(block < prep.blockCount ? covarianceOffset[block] : 0);
+    if (l > 0) blockEstimateAndCovariance(ws, solution, n, prep.localConstraints.length, local, covariance, cross);
+    rowResidualsAndLeverage(prep, block, weight, ws, solution, local, covariance, cross, out);
+  }
+  onBlock(total, total);
+  return out;
+}
+
+function blockEstimateAndCovariance(
+  ws: BlockWorkspace, s: GlobalSolution, n: number, m: number, local: Float64Array, covariance: Float64Array, cross: Float64Array,
+): void {
+  const l = ws.localCount;
+  const t = ws.touchedCount;
+  const stride = ws.maxLocals;
+  const G = ws.gain;
+  const Q = s.covariance;
+  for (let a = 0; a < l; a++) {
+    let value = ws.solvedLocal[a];
+    for (let x = 0; x < t; x++) value -= G[a * t + x] * s.estimate[ws.touched[x]];
+    for (let u = 0; u < ws.constraintCount; u++) value -= ws.constraintGain[u * stride + a] * s.multiplier[ws.constraintIndex[u]];
+    local[a] = value;
+  }
+  // cross = Z·Q restricted to the touched columns: G·Q_tt + H·(Q·F)ᵀ_t
+  cross.fill(0, 0, l * t);
+  for (let a = 0; a < l; a++) {
+    for (let b = 0; b < t; b++) {
+      const gab = G[a * t + b];
+      if (gab === 0) continue;
+      const rowQ = ws.touched[b] * n;
+      for (let x = 0; x < t; x++) cross[a * t + x] += gab * Q[rowQ + ws.touched[x]];
+    }
+    for (let u = 0; u < ws.constraintCount; u++) {
+      const hua = ws.constraintGain[u * stride + a];
+      const c = ws.constraintIndex[u];
+      for (let x = 0; x < t; x++) cross[a * t + x] += hua * s.covarianceGain[ws.touched[x] * m + c];
+    }
+  }
+  for (let a = 0; a < l; a++) {
+    for (let b = 0; b <= a; b++) {
+      let value = ws.inverseLocal[a * l + b];
+      for (let x = 0; x < t; x++) value += cross[a * t + x] * G[b * t + x];
+      for (let u = 0; u < ws.constraintCount; u++) {
+        const cu = ws.constraintIndex[u];
+        // (Z·Q·F)[a, cu] = Σ_x G[a,x]·(QF)[t_x, cu] + Σ_s H_s[a]·(FᵀQF)[c_s, cu]
+        let zqf = 0;
+        for (let x = 0; x < t; x++) zqf += G[a * t + x] * s.covarianceGain[ws.touched[x] * m + cu];
+        let hEinv = 0;
+        for (let v = 0; v < ws.constraintCount; v++) {
+          const cv = ws.constraintIndex[v];
+          zqf += ws.constraintGain[v * stride + a] * s.gainCovariance[cv * m + cu];
+          hEinv += ws.constraintGain[v * stride + a] * s.constraintNormalInverse[cv * m + cu];
+        }
+        value += (zqf - hEinv) * ws.constraintGain[u * stride + b];
+      }
+      covariance[a * l + b] = value;
+      covariance[b * l + a] = value;
+    }
+  }
+}
+
+function rowResidualsAndLeverage(
+  prep: PreparedProblem, block: number, weight: Float64Array, ws: BlockWorkspace, s: GlobalSolution,
+  local: Float64Array, covariance: Float64Array, cross: Float64Array, out: BackSubstitution,
+): void {
+  const rows = prep.rows;
+  const n = prep.globalCount;
+  const l = ws.localCount;
+  const t = ws.touchedCount;
+  const base = block < prep.blockCount ? prep.localOffset[block] : 0;
+  for (let i = prep.groupStart[block]; i < prep.groupStart[block + 1]; i++) {
+    const k = prep.order[i];
+    let v = prep.effectiveResidual[k];
+    let variance = 0;
+    const g0 = rows.globalStart[k];
+    const g1 = rows.globalStart[k + 1];
+    const l0 = rows.localStart[k];
+    const l1 = rows.localStart[k + 1];
+    for (let p = g0; p < g1; p++) {
+      const g = rows.globalIndex[p];
+      if (prep.globalFixed[g]) continue;
+      const a = rows.globalPartial[p];
+      v -= a * s.estimate[g];
+      for (let q = g0; q < g1; q++) {
+        const gq = rows.globalIndex[q];
+        if (!prep.globalFixed[gq]) variance += a * rows.globalPartial[q] * s.covariance[g * n + gq];
+      }
+    }
+    for (let p = l0; p < l1; p++) {
+      const li = rows.localIndex[p];
+      if (prep.localFixed[base + li]) continue;
+      const a = rows.localPartial[p];
+      v -= a * local[li];
+      for (let q = l0; q < l1; q++) variance += a * rows.localPartial[q] * covariance[li * l + rows.localIndex[q]];
+      for (let q = g0; q < g1; q++) {
+        const gq = rows.globalIndex[q];
+        if (!prep.globalFixed[gq]) variance -= 2 * a * rows.globalPartial[q] * cross[li * t + ws.position[gq]];
+      }
+    }
+    out.residual[k] = v;
+    out.leverage[k] = weight[k] * variance;
+  }
+}

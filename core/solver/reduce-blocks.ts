@@ -1,0 +1,123 @@
+import { accumulateBlock } from './accumulate-block.ts';
+import type { BlockWorkspace } from './block-workspace.ts';
+import { CompensatedArraySum } from './compensated-sum.ts';
+import type { PreparedProblem } from './prepared-problem.ts';
+
+/**
+ * The global system left after every block's locals are eliminated (Schur complement), data
+ * only (no global priors), plus the pieces of the local-term constraints:
+ *   normal  R  = Σ_blocks (N_tt − N_tlA⁻¹N_lt)   (n×n, full symmetric)
+ *   rhs     b' = Σ_blocks (b_t − N_tlA⁻¹b_l)
+ *   coupling B = C_g − Σ_blocks C_jA⁻¹N_lt         (m×n, m local-term constraints)
+ *   constraintNormal E = Σ_blocks C_jA⁻¹C_jᵀ          (m×m)
+ *   constraintRhs d' = d − Σ_blocks C_jA⁻¹b_l      (m)
+ * so that the reduced KKT system is [R Bᵀ; B −E]·[g; λ] = [b'; d'] (derivation in joint-solve.ts).
+ */
+export interface ReducedSystem {
+  readonly n: number;
+  readonly normal: Float64Array;
+  readonly rhs: Float64Array;
+  readonly constraintCount: number;
+  readonly coupling: Float64Array;
+  readonly constraintNormal: Float64Array;
+  readonly constraintRhs: Float64Array;
+  /** Blocks whose local matrix was singular, with the dropped directions (scaled coordinates). */
+  readonly singularBlocks: readonly { block: number; vectors: readonly Float64Array[]; relativeEigenvalues: readonly number[] }[];
+}
+
+const BLOCKS_PER_CHUNK = 32;
+
+function subtractSchur(ws: BlockWorkspace): void {
+  // N_tt −= N_ltᵀ·G over the upper triangle; b_t −= N_ltᵀ·y. Cost l·t²/2.
+  const l = ws.localCount;
+  const t = ws.touchedCount;
+  const Nlt = ws.normalLocalTouched;
+  const G = ws.gain;
+  const Ntt = ws.normalTouched;
+  for (let a = 0; a < l; a++) {
+    const rowL = a * t;
+    const ya = ws.solvedLocal[a];
+    for (let i = 0; i < t; i++) {
+      const n = Nlt[rowL + i];
+      if (n === 0) continue;
+      ws.rhsTouched[i] -= n * ya;
+      const rowI = i * t;
+      for (let j = i; j < t; j++) Ntt[rowI + j] -= n * G[rowL + j];
+    }
+  }
+}
+
+function scatter(ws: BlockWorkspace, n: number, normal: Float64Array, rhs: Float64Array): void {
+  const t = ws.touchedCount;
+  const Ntt = ws.normalTouched;
+  for (let i = 0; i < t; i++) {
+    const gi = ws.touched[i];
+    rhs[gi] += ws.rhsTouched[i];
+    const rowI = i * t;
+    for (let j = i; j < t; j++) {
+      const gj = ws.touched[j];
+      normal[gi < gj ? gi * n + gj : gj * n + gi] += Ntt[rowI + j];
+    }
+  }
+}
+
+function addConstraintTerms(ws: BlockWorkspace, m: number, n: number, B: Float64Array, E: Float64Array, d: Float64Array): void {
+  const l = ws.localCount;
+  const t = ws.touchedCount;
+  const stride = ws.maxLocals;
+  for (let s = 0; s < ws.constraintCount; s++) {
+    const c = ws.constraintIndex[s];
+    let cy = 0;
+    for (let i = 0; i < l; i++) cy += ws.constraintRow[s * stride + i] * ws.solvedLocal[i];
+    d[c] -= cy;
+    for (let u = 0; u < ws.constraintCount; u++) {
+      let e = 0;
+      for (let i = 0; i < l; i++) e += ws.constraintRow[s * stride + i] * ws.constraintGain[u * stride + i];
+      E[c * m + ws.constraintIndex[u]] += e;
+    }
+    for (let x = 0; x < t; x++) {
+      let sum = 0;
+      for (let i = 0; i < l; i++) sum += ws.constraintGain[s * stride + i] * ws.normalLocalTouched[i * t + x];
+      B[c * n + ws.touched[x]] -= sum;
+    }
+  }
+}
+
+/**
+ * Eliminates every block (and accumulates the block-less rows) into a ReducedSystem. Cost is
+ * linear in the rows plus Σ_blocks l·t²/2 for the Schur updates. `onBlock(done, total)` is
+ * called every few hundred blocks; it may throw to cancel.
+ */
+export function reduceBlocks(
+  prep: PreparedProblem, weight: Float64Array, ws: BlockWorkspace, recordSingular: boolean,
+  onBlock: (done: number, total: number) => void,
+): ReducedSystem {
+  const n = prep.globalCount;
+  const m = prep.localConstraints.length;
+  const normalSum = new CompensatedArraySum(n * n);
+  const rhsSum = new CompensatedArraySum(n);
+  const B = new Float64Array(m * n);
+  const E = new Float64Array(m * m);
+  const d = Float64Array.from(prep.localConstraints, (c) => c.value);
+  prep.localConstraints.forEach((c, i) => c.globalIndex.forEach((g, j) => { B[i * n + g] += c.globalCoefficient[j]; }));
+  const singularBlocks: { block: number; vectors: Float64Array[]; relativeEigenvalues: number[] }[] = [];
+  const total = prep.blockCount + 1;
+  for (let block = 0; block < total; block++) {
+    if ((block & 255) === 0) onBlock(block, total);
+    accumulateBlock(prep, block, weight, ws, true);
+    if (ws.dropped.length > 0 && recordSingular) {
+      singularBlocks.push({ block, vectors: ws.dropped.map((x) => x.vector), relativeEigenvalues: ws.dropped.map((x) => x.relativeEigenvalue) });
+    }
+    subtractSchur(ws);
+    scatter(ws, n, normalSum.chunk, rhsSum.chunk);
+    if (ws.constraintCount > 0) addConstraintTerms(ws, m, n, B, E, d);
+    if (block % BLOCKS_PER_CHUNK === BLOCKS_PER_CHUNK - 1) {
+      normalSum.flush();
+      rhsSum.flush();
+    }
+  }
+  onBlock(total, total);
+  const normal = normalSum.result();
+  for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) normal[i * n + j] = normal[j * n + i];
+  return { n, normal, rhs: rhsSum.result(), constraintCount: m, coupling: B, constraintNormal: E, constraintRhs: d, singularBlocks };
+}

@@ -1,0 +1,69 @@
+import { choleskyInPlace, choleskyInverse } from './cholesky.ts';
+import { symmetricEigen } from './symmetric-eigen.ts';
+
+/**
+ * Relative eigenvalue (of the unit-diagonal, "correlation-form" matrix) at or below which a
+ * direction counts as singular and is dropped from a generalised inverse. Exact singularity
+ * leaves eigenvalues of order n·ε ≈ 1e-15…1e-13; genuine but weak directions of real problems
+ * stay above ~1e-10, so 1e-12 separates the two (common practice for double precision).
+ */
+export const SINGULAR_RELATIVE_EIGENVALUE = 1e-12;
+
+/** A direction dropped from a generalised inverse, in the scaled (unit-diagonal) coordinates. */
+export interface DroppedDirection {
+  /** Eigenvalue of the scaled matrix divided by its largest eigenvalue. */
+  readonly relativeEigenvalue: number;
+  /** Unit eigenvector over the matrix's n parameters (scaled coordinates). */
+  readonly vector: Float64Array;
+}
+
+/**
+ * Inverse of a symmetric positive semi-definite n×n matrix (row-major), written into `inverse`.
+ * The matrix is scaled to unit diagonal (Jacobi scaling, which makes the pivot test independent
+ * of parameter units), then inverted by Cholesky; if a pivot falls below
+ * SINGULAR_RELATIVE_EIGENVALUE the scaled matrix is eigen-decomposed instead and directions with
+ * relative eigenvalue at or below that threshold are dropped — a generalised inverse that gives
+ * the minimum-norm solution in scaled coordinates. Parameters with a zero diagonal (no
+ * information at all) come out with zero rows and columns. Returns the dropped directions
+ * (empty when Cholesky succeeded). `matrix` is not modified.
+ */
+export function symmetricGeneralisedInverse(matrix: Float64Array, n: number, inverse: Float64Array): DroppedDirection[] {
+  const scale = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const diagonal = matrix[i * n + i];
+    scale[i] = diagonal > 0 ? 1 / Math.sqrt(diagonal) : 0;
+  }
+  const scaled = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) scaled[i * n + j] = matrix[i * n + j] * scale[i] * scale[j];
+  }
+  const dropped: DroppedDirection[] = [];
+  const hasEmpty = scale.some((s) => s === 0);
+  const factor = scaled.slice();
+  if (!hasEmpty && choleskyInPlace(factor, n, SINGULAR_RELATIVE_EIGENVALUE)) {
+    choleskyInverse(factor, n, inverse);
+  } else {
+    for (let i = 0; i < n; i++) if (scale[i] === 0) scaled[i * n + i] = 0;
+    const { values, vectors } = symmetricEigen(scaled, n);
+    const largest = Math.max(values[n - 1], Number.MIN_VALUE);
+    inverse.fill(0, 0, n * n);
+    for (let j = 0; j < n; j++) {
+      const relative = values[j] / largest;
+      const vector = vectors.subarray(j * n, j * n + n);
+      if (relative <= SINGULAR_RELATIVE_EIGENVALUE) {
+        dropped.push({ relativeEigenvalue: Math.max(relative, 0), vector: vector.slice() });
+        continue;
+      }
+      const reciprocal = 1 / values[j];
+      for (let r = 0; r < n; r++) {
+        const vr = vector[r] * reciprocal;
+        if (vr === 0) continue;
+        for (let c = 0; c < n; c++) inverse[r * n + c] += vr * vector[c];
+      }
+    }
+  }
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) inverse[i * n + j] *= scale[i] * scale[j];
+  }
+  return dropped;
+}

@@ -1,0 +1,148 @@
+import { choleskyInPlace, choleskyInverse } from './cholesky.ts';
+import type { PreparedProblem } from './prepared-problem.ts';
+import type { ReducedSystem } from './reduce-blocks.ts';
+import { symmetricGeneralisedInverse } from './small-inverse.ts';
+import type { DroppedDirection } from './small-inverse.ts';
+
+/**
+ * The solved global system. `covariance` is the a-priori covariance Q of the global corrections
+ * (the gg block of the inverse of the full constrained normal matrix); `multiplier` the Lagrange
+ * multipliers λ of the local-term constraints; `constraintGain` F = BᵀE⁻¹ (n×m),
+ * `covarianceGain` Q·F (n×m), `gainCovariance` FᵀQF (m×m), `constraintNormalInverse` E⁻¹ (m×m):
+ * the back-substitution needs them for the blocks' covariances.
+ */
+export interface GlobalSolution {
+  readonly estimate: Float64Array;
+  readonly covariance: Float64Array;
+  readonly multiplier: Float64Array;
+  readonly constraintGain: Float64Array;
+  readonly covarianceGain: Float64Array;
+  readonly gainCovariance: Float64Array;
+  readonly constraintNormalInverse: Float64Array;
+  /** Directions no prior or constraint fixed, solved as minimum norm (scaled coordinates). */
+  readonly minimumNormDirections: readonly DroppedDirection[];
+  /** Effective rows of the local-term constraints acting on the globals, B (m×n), and the global-only ones (k×n). */
+  readonly localConstraintRows: Float64Array;
+  readonly globalConstraintRows: Float64Array;
+}
+
+function invertSmall(matrix: Float64Array, size: number, what: () => string): Float64Array {
+  const factor = matrix.slice();
+  const inverse = new Float64Array(size * size);
+  if (size === 0) return inverse;
+  if (!choleskyInPlace(factor, size, 1e-13)) throw new RangeError(what());
+  choleskyInverse(factor, size, inverse);
+  return inverse;
+}
+
+/** A·B for row-major A (r×k) and B (k×c). */
+function multiply(a: Float64Array, b: Float64Array, r: number, k: number, c: number): Float64Array {
+  const out = new Float64Array(r * c);
+  for (let i = 0; i < r; i++) {
+    for (let p = 0; p < k; p++) {
+      const aip = a[i * k + p];
+      if (aip === 0) continue;
+      for (let j = 0; j < c; j++) out[i * c + j] += aip * b[p * c + j];
+    }
+  }
+  return out;
+}
+
+function transpose(a: Float64Array, r: number, c: number): Float64Array {
+  const out = new Float64Array(r * c);
+  for (let i = 0; i < r; i++) for (let j = 0; j < c; j++) out[j * r + i] = a[i * c + j];
+  return out;
+}
+
+/**
+ * Solves the reduced, constrained global system (see ReducedSystem):
+ * 1. S = R + global priors, with fixed globals pinned to a zero correction;
+ * 2. local-term constraints: λ is eliminated, S += BᵀE⁻¹B and h = b' + BᵀE⁻¹d' (Schur complement
+ *    on the −E block of [R Bᵀ; B −E]; E is positive definite when the constraints are
+ *    independent in their local terms);
+ * 3. global-only constraints C·g = d: M = S + CᵀC with rows scaled to unit norm in the
+ *    unit-diagonal metric, g = M⁻¹h + M⁻¹Cᵀ·T⁻¹(d − CM⁻¹h), Q = M⁻¹ − M⁻¹CᵀT⁻¹CM⁻¹ with
+ *    T = CM⁻¹Cᵀ (adding CᵀC leaves the constrained solution unchanged; e.g. Koch, Parameter
+ *    Estimation and Hypothesis Testing in Linear Models, 2nd ed., 1999, §3.5);
+ * 4. M⁻¹ by Cholesky, falling back to an eigen-decomposition generalised inverse when M is
+ *    singular to working precision; each such direction is returned, never hidden.
+ */
+export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem): GlobalSolution {
+  const n = reduced.n;
+  const m = reduced.constraintCount;
+  const S = reduced.normal.slice();
+  const h = reduced.rhs.slice();
+  for (let p = 0; p < n; p++) {
+    if (prep.globalFixed[p]) {
+      S[p * n + p] = 1;
+      h[p] = 0;
+    } else {
+      S[p * n + p] += prep.globalPriorWeight[p];
+      h[p] += prep.globalPriorWeightedValue[p];
+    }
+  }
+  const B = reduced.coupling;
+  const Einv = invertSmall(reduced.constraintNormal, m, () =>
+    `constraints ${prep.localConstraints.map((c) => `"${c.label}"`).join(', ')} are linearly dependent in their local terms (or touch only locals without data); drop one of them`);
+  const F = multiply(transpose(B, m, n), Einv, n, m, m);
+  if (m > 0) {
+    const FB = multiply(F, B, n, m, n);
+    for (let i = 0; i < n * n; i++) S[i] += FB[i];
+    const Fd = multiply(F, reduced.constraintRhs, n, m, 1);
+    for (let i = 0; i < n; i++) h[i] += Fd[i];
+  }
+  const k = prep.globalConstraints.length;
+  const C = new Float64Array(k * n);
+  const d = new Float64Array(k);
+  prep.globalConstraints.forEach((constraint, i) => {
+    let norm2 = 0;
+    constraint.globalIndex.forEach((g, j) => {
+      C[i * n + g] += constraint.globalCoefficient[j];
+    });
+    for (let g = 0; g < n; g++) norm2 += (C[i * n + g] * C[i * n + g]) / Math.max(S[g * n + g], Number.MIN_VALUE);
+    const factor = 1 / Math.sqrt(norm2);
+    for (let g = 0; g < n; g++) C[i * n + g] *= factor;
+    d[i] = constraint.value * factor;
+  });
+  const M = S.slice();
+  for (let i = 0; i < k; i++) {
+    for (let a = 0; a < n; a++) {
+      const ca = C[i * n + a];
+      if (ca === 0) continue;
+      for (let b = 0; b < n; b++) M[a * n + b] += ca * C[i * n + b];
+    }
+  }
+  const Minv = new Float64Array(n * n);
+  const minimumNormDirections = symmetricGeneralisedInverse(M, n, Minv);
+  let estimate = multiply(Minv, h, n, n, 1);
+  let Q = Minv;
+  if (k > 0) {
+    const P = multiply(Minv, transpose(C, k, n), n, n, k);
+    const Tinv = invertSmall(multiply(C, P, k, n, k), k, () =>
+      `constraints ${prep.globalConstraints.map((c) => `"${c.label}"`).join(', ')} on global parameters are linearly dependent; drop one of them`);
+    // d − C·M⁻¹·h, with C·M⁻¹ = Pᵀ (M⁻¹ symmetric)
+    const misfit = d.slice();
+    for (let j = 0; j < n; j++) for (let i = 0; i < k; i++) misfit[i] -= P[j * k + i] * h[j];
+    const PT = multiply(P, Tinv, n, k, k);
+    const correction = multiply(PT, misfit, n, k, 1);
+    estimate = estimate.map((x, i) => x + correction[i]);
+    const PTPt = multiply(PT, transpose(P, n, k), n, k, n);
+    Q = Minv.map((x, i) => x - PTPt[i]);
+  }
+  for (let p = 0; p < n; p++) {
+    if (!prep.globalFixed[p]) continue;
+    estimate[p] = 0;
+    for (let j = 0; j < n; j++) {
+      Q[p * n + j] = 0;
+      Q[j * n + p] = 0;
+    }
+  }
+  const Bg = multiply(B, estimate, m, n, 1);
+  const multiplier = multiply(Einv, Bg.map((x, i) => x - reduced.constraintRhs[i]), m, m, 1);
+  const covarianceGain = multiply(Q, F, n, n, m);
+  const gainCovariance = multiply(transpose(F, n, m), covarianceGain, m, n, m);
+  return {
+    estimate, covariance: Q, multiplier, constraintGain: F, covarianceGain, gainCovariance,
+    constraintNormalInverse: Einv, minimumNormDirections, localConstraintRows: B, globalConstraintRows: C,
+  };
+}
