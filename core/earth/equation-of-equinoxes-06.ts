@@ -15,10 +15,12 @@ import {
   COMPLEMENTARY_T1_COUNT,
 } from './equinox-complementary-terms.ts';
 import * as arg from './fundamental-arguments.ts';
+import { HarmonicArguments } from './harmonic-arguments.ts';
 import { meanObliquity06 } from './mean-obliquity-06.ts';
 import type { Nutation } from './nutation-series.ts';
 
 const fundamental = new Float64Array(8);
+const harmonics = new HarmonicArguments(COMPLEMENTARY_MULTIPLIERS, 8);
 
 /** The complementary terms of the equation of the equinoxes at TT `tt`, radians. */
 export function equinoxComplementaryTerms(tt: JulianDate): number {
@@ -31,12 +33,12 @@ export function equinoxComplementaryTerms(tt: JulianDate): number {
   fundamental[5] = arg.meanLongitudeVenus(t);
   fundamental[6] = arg.meanLongitudeEarth(t);
   fundamental[7] = arg.generalPrecessionInLongitude(t);
+  const termCount = COMPLEMENTARY_T0_COUNT + COMPLEMENTARY_T1_COUNT;
+  harmonics.evaluate(fundamental, termCount);
   let sumT0 = 0;
   let sumT1 = 0;
-  for (let i = COMPLEMENTARY_T0_COUNT + COMPLEMENTARY_T1_COUNT - 1; i >= 0; i--) {
-    let angle = 0;
-    for (let k = 0; k < 8; k++) angle += COMPLEMENTARY_MULTIPLIERS[8 * i + k] * fundamental[k];
-    const term = COMPLEMENTARY_AMPLITUDES_ARCSEC[2 * i] * Math.sin(angle) + COMPLEMENTARY_AMPLITUDES_ARCSEC[2 * i + 1] * Math.cos(angle);
+  for (let i = termCount - 1; i >= 0; i--) {
+    const term = COMPLEMENTARY_AMPLITUDES_ARCSEC[2 * i] * harmonics.sines[i] + COMPLEMENTARY_AMPLITUDES_ARCSEC[2 * i + 1] * harmonics.cosines[i];
     if (i >= COMPLEMENTARY_T0_COUNT) sumT1 += term;
     else sumT0 += term;
   }

@@ -13,11 +13,13 @@
  *
  * Input: TT as a two-part JD. Output: radians. Accuracy of IAU 2000A against VLBI: about 0.2 mas
  * (free core nutation not modelled; it is in the IERS dX, dY).
- * The loops read typed arrays and allocate nothing but the returned object.
+ * Terms are evaluated through HarmonicArguments (products of precomputed multiples instead of one
+ * sin/cos pair per term); the loops read typed arrays and allocate nothing but the returned object.
  */
 import { julianCenturiesSinceJ2000, type JulianDate } from '../time/julian-date.ts';
 import { ARCSEC, MAS, TAU } from '../units.ts';
 import * as arg from './fundamental-arguments.ts';
+import { HarmonicArguments } from './harmonic-arguments.ts';
 import {
   LUNISOLAR_2000B_TERM_COUNT,
   LUNISOLAR_AMPLITUDES,
@@ -37,19 +39,22 @@ export interface Nutation {
 /** 0.1 µas in radians: the unit of the published amplitudes. */
 const TENTH_MICROARCSEC = ARCSEC / 1e7;
 
-/** Luni-solar sums (in 0.1 µas) of the first `termCount` terms at Delaunay arguments l…Ω. */
-function lunisolarSum(
-  t: number, termCount: number, l: number, lp: number, f: number, d: number, om: number, out: Float64Array,
-): void {
+const lunisolarHarmonics = new HarmonicArguments(LUNISOLAR_MULTIPLIERS, 5);
+const planetaryHarmonics = new HarmonicArguments(PLANETARY_MULTIPLIERS, 13);
+const delaunay = new Float64Array(5);
+const planetaryArguments = new Float64Array(13);
+const sums = new Float64Array(2);
+
+/** Luni-solar sums (in 0.1 µas) of the first `termCount` terms at Delaunay arguments l, l′, F, D, Ω. */
+function lunisolarSum(t: number, termCount: number, out: Float64Array): void {
+  lunisolarHarmonics.evaluate(delaunay, termCount);
+  const { sines, cosines } = lunisolarHarmonics;
   let dpsi = 0;
   let deps = 0;
+  // Smallest terms first, as the published tables are summed, to limit rounding.
   for (let i = termCount - 1; i >= 0; i--) {
-    const m = 5 * i;
-    const angle =
-      LUNISOLAR_MULTIPLIERS[m] * l + LUNISOLAR_MULTIPLIERS[m + 1] * lp + LUNISOLAR_MULTIPLIERS[m + 2] * f +
-      LUNISOLAR_MULTIPLIERS[m + 3] * d + LUNISOLAR_MULTIPLIERS[m + 4] * om;
-    const s = Math.sin(angle);
-    const c = Math.cos(angle);
+    const s = sines[i];
+    const c = cosines[i];
     const a = 6 * i;
     dpsi += (LUNISOLAR_AMPLITUDES[a] + LUNISOLAR_AMPLITUDES[a + 1] * t) * s + LUNISOLAR_AMPLITUDES[a + 2] * c;
     deps += (LUNISOLAR_AMPLITUDES[a + 3] + LUNISOLAR_AMPLITUDES[a + 4] * t) * c + LUNISOLAR_AMPLITUDES[a + 5] * s;
@@ -57,9 +62,6 @@ function lunisolarSum(
   out[0] = dpsi;
   out[1] = deps;
 }
-
-const planetaryArguments = new Float64Array(13);
-const sums = new Float64Array(2);
 
 /** Planetary sums (in 0.1 µas); arguments as in MHB2000 (see the IAU SOFA nut00a notes). */
 function planetarySum(t: number, out: Float64Array): void {
@@ -77,17 +79,13 @@ function planetarySum(t: number, out: Float64Array): void {
   p[10] = arg.meanLongitudeUranus(t);
   p[11] = (5.321159 + 3.8127774 * t) % TAU; // Neptune, MHB2000
   p[12] = arg.generalPrecessionInLongitude(t);
+  planetaryHarmonics.evaluate(p, PLANETARY_TERM_COUNT);
+  const { sines, cosines } = planetaryHarmonics;
   let dpsi = 0;
   let deps = 0;
   for (let i = PLANETARY_TERM_COUNT - 1; i >= 0; i--) {
-    const m = 13 * i;
-    let angle = 0;
-    for (let k = 0; k < 13; k++) {
-      const multiplier = PLANETARY_MULTIPLIERS[m + k];
-      if (multiplier !== 0) angle += multiplier * p[k];
-    }
-    const s = Math.sin(angle);
-    const c = Math.cos(angle);
+    const s = sines[i];
+    const c = cosines[i];
     const a = 4 * i;
     dpsi += PLANETARY_AMPLITUDES[a] * s + PLANETARY_AMPLITUDES[a + 1] * c;
     deps += PLANETARY_AMPLITUDES[a + 2] * s + PLANETARY_AMPLITUDES[a + 3] * c;
@@ -99,10 +97,12 @@ function planetarySum(t: number, out: Float64Array): void {
 /** IAU 2000A nutation at TT `tt` (full series; see the file header). */
 export function nutation00a(tt: JulianDate): Nutation {
   const t = julianCenturiesSinceJ2000(tt);
-  lunisolarSum(
-    t, LUNISOLAR_TERM_COUNT, arg.meanAnomalyMoon(t), arg.meanAnomalySunMhb2000(t),
-    arg.meanArgumentOfLatitudeMoon(t), arg.meanElongationMoonMhb2000(t), arg.meanLongitudeMoonNode(t), sums,
-  );
+  delaunay[0] = arg.meanAnomalyMoon(t);
+  delaunay[1] = arg.meanAnomalySunMhb2000(t);
+  delaunay[2] = arg.meanArgumentOfLatitudeMoon(t);
+  delaunay[3] = arg.meanElongationMoonMhb2000(t);
+  delaunay[4] = arg.meanLongitudeMoonNode(t);
+  lunisolarSum(t, LUNISOLAR_TERM_COUNT, sums);
   const dpsiLunisolar = sums[0];
   const depsLunisolar = sums[1];
   planetarySum(t, sums);
@@ -124,12 +124,12 @@ export function nutation06a(tt: JulianDate): Nutation {
 export function nutation00b(tt: JulianDate): Nutation {
   const t = julianCenturiesSinceJ2000(tt);
   // Linear Delaunay arguments of Simon et al. (1994), as IAU 2000B prescribes.
-  const l = ((485868.249036 + 1717915923.2178 * t) % 1296000) * ARCSEC;
-  const lp = ((1287104.79305 + 129596581.0481 * t) % 1296000) * ARCSEC;
-  const f = ((335779.526232 + 1739527262.8478 * t) % 1296000) * ARCSEC;
-  const d = ((1072260.70369 + 1602961601.209 * t) % 1296000) * ARCSEC;
-  const om = ((450160.398036 - 6962890.5431 * t) % 1296000) * ARCSEC;
-  lunisolarSum(t, LUNISOLAR_2000B_TERM_COUNT, l, lp, f, d, om, sums);
+  delaunay[0] = ((485868.249036 + 1717915923.2178 * t) % 1296000) * ARCSEC;
+  delaunay[1] = ((1287104.79305 + 129596581.0481 * t) % 1296000) * ARCSEC;
+  delaunay[2] = ((335779.526232 + 1739527262.8478 * t) % 1296000) * ARCSEC;
+  delaunay[3] = ((1072260.70369 + 1602961601.209 * t) % 1296000) * ARCSEC;
+  delaunay[4] = ((450160.398036 - 6962890.5431 * t) % 1296000) * ARCSEC;
+  lunisolarSum(t, LUNISOLAR_2000B_TERM_COUNT, sums);
   return {
     dpsiRad: sums[0] * TENTH_MICROARCSEC - 0.135 * MAS,
     depsRad: sums[1] * TENTH_MICROARCSEC + 0.388 * MAS,
