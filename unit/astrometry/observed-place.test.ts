@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { earthState } from '../../core/astrometry/earth-state.ts';
 import { FRAME_BIAS } from '../../core/astrometry/frame-bias.ts';
+import { iauEarthOrientation } from '../../core/astrometry/iau-earth-orientation.ts';
 import { observedPlace } from '../../core/astrometry/observed-place.ts';
 import { placeContext } from '../../core/astrometry/place-context.ts';
 import { starMotion } from '../../core/astrometry/space-motion.ts';
-import { MAS, UAS } from '../../core/units.ts';
+import { ARCSEC, MAS, UAS } from '../../core/units.ts';
 import { loadErfaPlaceFixture, type PlaceCase } from './erfa-place-fixture.ts';
 import { angleDifference, toOrientation, toSite, toStar } from './place-helpers.ts';
 
@@ -57,5 +58,23 @@ describe('observedPlace(context, star) with ERFA Earth orientation', () => {
       }
     }
     console.log(`observed place vs atco13: worst ${(worst / MAS).toFixed(3)} mas`);
+  });
+});
+
+describe('observedPlace with iauEarthOrientation (core/earth)', () => {
+  it(`gives erfa.atco13's observed place within 3 mas with our own Earth orientation (${source})`, () => {
+    let worst = 0;
+    for (const c of fixture.places) {
+      const tt = { jd1: c.time.tt[0], jd2: c.time.tt[1] };
+      const ut1 = { jd1: c.time.ut1[0], jd2: c.time.ut1[1] };
+      const instant = { tt, ut1, xpRad: c.eop.xpArcsec * ARCSEC, ypRad: c.eop.ypArcsec * ARCSEC };
+      const context = placeContext(tt.jd1 - 2451545 + tt.jd2, earthState(tt), iauEarthOrientation(instant), toSite(c.site), c.weather);
+      const ours = observedPlace(context, starMotion(toStar(c.star)));
+      const dHour = angleDifference(ours.observedHourAngleRad, c.observed.hourAngleRad) * Math.cos(c.observed.declinationRad);
+      const errors = [dHour, ours.observedDeclinationRad - c.observed.declinationRad, ours.observedZenithRad - c.observed.zenithRad];
+      for (const e of errors) expect(Math.abs(e), `${c.kind} ${JSON.stringify(c.star)}`).toBeLessThan(3 * MAS);
+      worst = Math.max(worst, ...errors.map(Math.abs));
+    }
+    console.log(`observed place (own Earth orientation) vs atco13: worst ${(worst / MAS).toFixed(3)} mas`);
   });
 });
