@@ -1,4 +1,4 @@
-import { parseTheme, THEME_STORAGE_KEY, type ThemeId } from './themes.ts';
+import { DAYTIME_THEME_STORAGE_KEY, parseTheme, THEME_STORAGE_KEY, type ThemeId } from './themes.ts';
 
 /** Where the theme is kept and shown; tests pass their own. */
 export interface ThemeHost {
@@ -20,14 +20,16 @@ export class ThemeState {
 
   constructor(host: ThemeHost) {
     this.#host = host;
-    const saved = parseTheme(this.#read());
-    this.#show(saved ?? 'day');
+    const daytime = parseTheme(this.#read(DAYTIME_THEME_STORAGE_KEY));
+    if (daytime !== null && daytime !== 'night') this.#daytimeTheme = daytime;
+    this.#show(parseTheme(this.#read(THEME_STORAGE_KEY)) ?? this.#daytimeTheme);
   }
 
   choose(theme: ThemeId): void {
     this.#show(theme);
     try {
       this.#host.storage?.setItem(THEME_STORAGE_KEY, theme);
+      this.#host.storage?.setItem(DAYTIME_THEME_STORAGE_KEY, this.#daytimeTheme);
       this.saveProblem = null;
     } catch (error) {
       this.saveProblem = `The theme could not be saved (${String(error)}); it will reset on reload.`;
@@ -44,9 +46,9 @@ export class ThemeState {
     this.#host.apply(theme);
   }
 
-  #read(): string | null {
+  #read(key: string): string | null {
     try {
-      return this.#host.storage?.getItem(THEME_STORAGE_KEY) ?? null;
+      return this.#host.storage?.getItem(key) ?? null;
     } catch {
       return null; // blocked storage: start in the day theme, as the boot script did
     }
