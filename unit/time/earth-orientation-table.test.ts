@@ -1,0 +1,120 @@
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { bundledEarthOrientationTable } from '../../core/time/bundled-earth-orientation.ts';
+import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
+import { parseIersC04, parseIersFinals } from '../../core/time/earth-orientation-table.ts';
+import { calendarDayToMjd, daysBetween } from '../../core/time/julian-date.ts';
+import { TimeScale } from '../../core/time/timescale.ts';
+import { ARCSEC, MAS } from '../../core/units.ts';
+
+const c04Text = readFileSync(fileURLToPath(new URL('../../assets/eop/eopc04_IAU2000.62-now', import.meta.url)), 'utf8');
+const c04 = parseIersC04(c04Text, 'assets/eop/eopc04_IAU2000.62-now');
+const US = 1e-6;
+
+// Eight real lines of the IERS Rapid Service finals2000A file (2016-04-25 … 2016-05-02, issued
+// 2016-04-30; as carried by Debian's python3-astropy test data): Bulletin A, 'I' then 'P' flags.
+const FINALS_EXCERPT = `
+16 425 57503.00 I  0.027084 0.000091  0.463531 0.000093  I-0.1265278 0.0000165  1.3290 0.0090  P     0.013    0.239     0.007    0.600
+16 426 57504.00 I  0.028086 0.000091  0.465338 0.000093  I-0.1278231 0.0000161  1.2593 0.0118  P     0.040    0.239     0.003    0.600
+16 427 57505.00 I  0.028928 0.000091  0.467015 0.000092  I-0.1290372 0.0000169  1.1618 0.0123  P     0.065    0.239     0.008    0.600
+16 428 57506.00 I  0.029730 0.000092  0.468564 0.000091  I-0.1303716 0.0000185                 P     0.083    0.239     0.035    0.600
+16 429 57507.00 P  0.030798 0.000622  0.469783 0.000448  P-0.1317429 0.0001080                 P     0.085    0.239     0.066    0.600
+16 430 57508.00 P  0.031994 0.000923  0.470993 0.000737  P-0.1331878 0.0002041                 P     0.065    0.239     0.057    0.600
+16 5 1 57509.00 P  0.033490 0.001163  0.472083 0.000987  P-0.1347405 0.0003028                 P     0.040    0.239     0.007    0.600
+16 5 2 57510.00 P  0.035183 0.001370  0.473116 0.001215  P-0.1364495 0.0004021                 P     0.034    0.239    -0.028    0.600
+`.slice(1);
+
+describe('parseIersC04 on the bundled IERS EOP 14 C04 file', () => {
+  it('covers 1962-01-01 … 2022-11-29 with the values printed in the file', () => {
+    expect(c04.firstMjd).toBe(calendarDayToMjd(1962, 1, 1));
+    expect(c04.lastMjd).toBe(calendarDayToMjd(2022, 11, 29));
+    // File line "1962   1   1  37665  -0.012700   0.213000   0.0326338 ..."
+    const first = c04.at(37665);
+    expect(first.status).toBe('observed');
+    expect(first.xpRad / ARCSEC).toBeCloseTo(-0.0127, 12);
+    expect(first.ypRad / ARCSEC).toBeCloseTo(0.213, 12);
+    expect(first.dut1Seconds).toBeCloseTo(0.0326338, 12);
+  });
+
+  it('the bundled core module decodes to exactly the file’s values', () => {
+    const bundled = bundledEarthOrientationTable();
+    expect([bundled.firstMjd, bundled.lastMjd]).toEqual([c04.firstMjd, c04.lastMjd]);
+    for (let mjd = c04.firstMjd; mjd <= c04.lastMjd; mjd += 97) {
+      const a = bundled.at(mjd);
+      const b = c04.at(mjd);
+      expect(Math.abs(a.dut1Seconds - b.dut1Seconds)).toBeLessThan(1e-12);
+      expect(Math.abs(a.xpRad - b.xpRad)).toBeLessThan(1e-6 * MAS);
+      expect(Math.abs(a.ypRad - b.ypRad)).toBeLessThan(1e-6 * MAS);
+    }
+  });
+
+  it('rejects a damaged line with its line number', () => {
+    const lines = c04Text.split('\n');
+    const index = lines.findIndex((line) => line.startsWith('1970   1   1'));
+    lines[index] = lines[index].replace('40587', '40588');
+    expect(() => parseIersC04(lines.join('\n'), 'damaged.c04')).toThrow(new RegExp(`damaged\\.c04, line ${index + 1}: MJD 40588 does not match`));
+  });
+});
+
+describe('parseIersFinals (IERS finals2000A layout)', () => {
+  const finals = parseIersFinals(FINALS_EXCERPT, 'finals excerpt');
+
+  it('reads Bulletin A values and flags: observed until 2016-04-28, predicted after', () => {
+    expect([finals.firstMjd, finals.lastMjd, finals.lastObservedMjd]).toEqual([57503, 57510, 57506]);
+    expect(finals.at(57503).dut1Seconds).toBeCloseTo(-0.1265278, 12);
+    expect(finals.at(57503).xpRad / ARCSEC).toBeCloseTo(0.027084, 12);
+    expect(finals.at(57504.5).status).toBe('observed');
+    expect(finals.at(57508).status).toBe('predicted');
+    expect(finals.at(57508).note).toMatch(/IERS predictions/);
+  });
+
+  // The excerpt's own error columns give 0.09 mas for the pole and 17 µs for UT1 on these days.
+  it('agrees with the final C04 series within 0.05 ms and 0.2 mas where both are observed (two IERS products)', () => {
+    for (let mjd = 57503; mjd <= 57506; mjd += 0.25) {
+      expect(Math.abs(finals.at(mjd).dut1Seconds - c04.at(mjd).dut1Seconds)).toBeLessThan(50 * US);
+      expect(Math.abs(finals.at(mjd).xpRad - c04.at(mjd).xpRad)).toBeLessThan(0.2 * MAS);
+    }
+  });
+
+  it('rejects a bad field with its line number and is silent about nothing', () => {
+    const broken = FINALS_EXCERPT.replace('-0.1278231', '-0.12X8231');
+    expect(() => parseIersFinals(broken, 'broken finals')).toThrow(/broken finals, line 2: UT1−UTC \(columns 59–68\) "-0.12X8231" is not a number/);
+    expect(() => parseIersFinals(FINALS_EXCERPT.replace(/ I /g, ' Q '), 'flags')).toThrow(/flag I or P/);
+  });
+
+  it('outside the table: zero values, status outside-table and a note that says what to load', () => {
+    const outside = finals.at(60000);
+    expect(outside).toMatchObject({ dut1Seconds: 0, xpRad: 0, ypRad: 0, status: 'outside-table' });
+    expect(outside.note).toMatch(/load a newer IERS finals2000A or C04 file/);
+  });
+});
+
+describe('interpolation', () => {
+  it('returns the tabulated value at 0h UTC and a smooth value between (4-point Lagrange)', () => {
+    const mjd = calendarDayToMjd(2010, 3, 14);
+    const node = c04.at(mjd);
+    expect(node.dut1Seconds).toBe(c04.at(mjd).dut1Seconds);
+    const mid = c04.at(mjd + 0.5).dut1Seconds;
+    const linear = (c04.at(mjd).dut1Seconds + c04.at(mjd + 1).dut1Seconds) / 2;
+    expect(Math.abs(mid - linear)).toBeLessThan(20 * US); // curvature of UT1 over a day is tiny
+  });
+
+  it('UT1 stays continuous through the leap second at the end of 2016-12-31', () => {
+    const scale = new TimeScale(BUNDLED_LEAP_SECONDS, c04);
+    const before = scale.fromIsoUtc('2016-12-31T23:59:59Z');
+    const after = scale.fromIsoUtc('2017-01-01T00:00:01Z');
+    // 3 SI seconds of TAI elapse (…59, 60, 00:00:00 → 00:00:01); UT1 advances by the same to 1 ms.
+    expect(daysBetween(after.tai, before.tai) * 86400).toBeCloseTo(3, 9);
+    expect(Math.abs(daysBetween(after.ut1, before.ut1) * 86400 - 3)).toBeLessThan(1e-3);
+    expect(after.dut1Seconds - before.dut1Seconds).toBeCloseTo(1, 2); // UT1 − UTC jumps by +1 s
+    expect(before.warnings).toEqual([]);
+  });
+
+  it('TimeScale with the bundled table warns after 2022-11-29 and applies DUT1 = 0 there', () => {
+    const scale = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
+    const late = scale.fromIsoUtc('2024-05-01T00:00:00Z');
+    expect(late.dut1Seconds).toBe(0);
+    expect(late.warnings.join(' ')).toMatch(/outside IERS EOP 14 C04 .* load a newer IERS/);
+  });
+});
