@@ -1,7 +1,8 @@
 import { apply } from '../math/mat3.ts';
 import { toSpherical, type Vec3 } from '../math/vec3.ts';
 import type { PlaceContext } from './place-context.ts';
-import { observedFromTrueZenith, refractionWarning } from './refraction.ts';
+import { observedFromTrueZenith, REFRACTION_HORIZON_RAD, refractionWarning } from './refraction.ts';
+import { DEG } from '../units.ts';
 import type { StarMotion } from './space-motion.ts';
 import { starDirection } from './star-direction.ts';
 
@@ -40,10 +41,13 @@ export function observedPlace(context: PlaceContext, motion: StarMotion): Observ
   ).apparent;
   const apparent = toSpherical(apply(context.npb, geocentric));
   const local = apply(context.gcrsToLocal, topocentric);
-  const observed = refractInLocalFrame(local, context);
   const warnings = [...context.warnings];
   const zenith = zenithDistance(local, context.latitudeRad);
-  if (context.refraction !== null) {
+  let observed = local;
+  if (context.refraction !== null && zenith > REFRACTION_HORIZON_RAD) {
+    warnings.push(`the star is at zenith distance ${(zenith / DEG).toFixed(2)}°, at or below the horizon: no refraction applied`);
+  } else if (context.refraction !== null) {
+    observed = refractInLocalFrame(local, context);
     const warning = refractionWarning(zenith);
     if (warning !== undefined) warnings.push(warning);
   }

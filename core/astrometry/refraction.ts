@@ -3,8 +3,8 @@ import { DEG } from '../units.ts';
 
 /** Beyond this zenith distance the A tan Z + B tan³ Z form loses accuracy quickly (0.6″ at 80°). */
 export const REFRACTION_MODEL_LIMIT_RAD = 75 * DEG;
-/** The model is not defined at or below the horizon (tan Z diverges). */
-const HORIZON_RAD = 89.5 * DEG;
+/** The model is not defined at or below the horizon (tan Z diverges): refraction stops here. */
+export const REFRACTION_HORIZON_RAD = 89.5 * DEG;
 
 /**
  * Refraction ΔZ (radians, positive: the star appears higher) at observed zenith distance
@@ -52,7 +52,7 @@ export function refractionWarning(zenithRad: number): string | undefined {
 }
 
 function checkZenith(zenithRad: number, name: string): void {
-  if (!Number.isFinite(zenithRad) || zenithRad < 0 || zenithRad > HORIZON_RAD) {
+  if (!Number.isFinite(zenithRad) || zenithRad < 0 || zenithRad > REFRACTION_HORIZON_RAD) {
     throw new RangeError(`refraction: ${name} must lie in 0–89.5° (got ${zenithRad / DEG}°); the A tan Z + B tan³ Z model has no meaning at the horizon`);
   }
 }

@@ -49,10 +49,12 @@ export function predictTransit(
   orientationModel: EarthOrientationModel,
 ): TransitPrediction {
   const target = culmination === 'upper' ? 0 : Math.PI;
-  const evaluate = (utc: TwoPartJulianDate) => {
+  // The search runs on the geometric hour angle (the star may be below the horizon on the way);
+  // the last evaluation adds refraction, which keeps the hour angle on the meridian.
+  const evaluate = (utc: TwoPartJulianDate, withWeather = false) => {
     const instant = instantFromUtc(utc);
     const days = instant.tt.jd1 - 2_451_545 + instant.tt.jd2;
-    const context = placeContext(days, earthState(instant.tt), orientationModel(instant), site, weather);
+    const context = placeContext(days, earthState(instant.tt), orientationModel(instant), site, withWeather ? weather : null);
     return { context, place: observedPlace(context, motion), warnings: instant.warnings ?? [] };
   };
   let utc = afterUtc;
@@ -65,7 +67,7 @@ export function predictTransit(
     const stepDays = residual / HOUR_ANGLE_RATE_RAD_PER_DAY;
     utc = { jd1: utc.jd1, jd2: utc.jd2 - stepDays };
     if (Math.abs(stepDays) < STEP_LIMIT_DAYS) {
-      state = evaluate(utc);
+      state = evaluate(utc, true);
       return {
         utc, culmination, side: sideOfZenith(state.context, state.place), place: state.place,
         context: state.context, warnings: [...state.warnings, ...state.place.warnings],
