@@ -1,0 +1,103 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { readCsv } from '../../core/formats/csv.ts';
+import { parseTransitLog } from '../../core/formats/transit-log.ts';
+import { parseStarList } from '../../core/formats/star-list.ts';
+import { parseSiteDescription } from '../../core/formats/site-description.ts';
+import type { ParseResult } from '../../core/formats/parse-result.ts';
+
+const RUNS = 1500;
+const encoder = new TextEncoder();
+
+/** A seed per run, printed so a failure can be replayed with the same seed. */
+function seedFor(name: string): number {
+  const seed = Number(process.env.FUZZ_SEED ?? Date.now() % 2_147_483_647);
+  console.log(`fuzz ${name}: seed ${seed} (replay with FUZZ_SEED=${seed})`);
+  return seed;
+}
+
+function checkInvariants<T extends { row: number }>(result: ParseResult<T>): void {
+  const rejectedRows = new Set(result.rejected.filter((r) => r.row >= 1).map((r) => r.row));
+  expect(result.rows.length + rejectedRows.size).toBe(result.totalRows);
+  for (const r of result.rejected) {
+    expect(Number.isInteger(r.row) && r.row >= 0 && r.row <= result.totalRows).toBe(true);
+    expect(Number.isInteger(r.line) && r.line >= 0).toBe(true);
+    expect(r.reason.length).toBeGreaterThan(0);
+  }
+  for (const row of result.rows) expect(rejectedRows.has(row.row)).toBe(false);
+}
+
+/** Serialises fields per RFC 4180, quoting when needed. */
+function toCsv(records: string[][], newline: string): string {
+  return records.map((fields) => fields.map((f) => (/[",\r\n]/.test(f) ? `"${f.replaceAll('"', '""')}"` : f)).join(',')).join(newline) + newline;
+}
+
+const transitCells = fc.constantFrom(
+  'K-1', 'K-2', 'upper', 'lower', 'east', 'west', 'none', '', ' ', '12.5', '1,5', '-3e2', 'NaN', '1013', '5000', '95', '45',
+  '2026-03-14T21:07:30Z', '2026-03-14T21:07:30', '2016-12-31T23:59:60Z', '2026-02-30T01:00:00Z', '75010;;75020', 'cloud', 'cloud;x',
+  '"', 'a"b', '\n', 'é', '2026-03-14',
+);
+const transitHeaders = fc.shuffledSubarray(
+  ['starId', 'culmination', 'clamp', 'wire1Utc', 'wire2Utc', 'wire1ClockS', 'wireTimesClockS', 'micrometerTurns', 'zenithDistanceDeg', 'pressureHpa', 'flags', 'note', 'extra', 'nightDate'],
+  { minLength: 1 },
+);
+const starCells = fc.constantFrom('S-1', 'S-2', '', '10', '360', '-91', '45.5', '2016.0', '1799', 'abc', '0', '-5', '1e400', 'p1;p2', '"x"', '\r\n');
+const starHeaders = fc.shuffledSubarray(
+  ['id', 'label', 'raDeg', 'decDeg', 'epochJyear', 'pmRaCosDecMasYr', 'pmDecMasYr', 'parallaxMas', 'parallaxSigmaMas', 'radialVelocityKmS', 'magnitude', 'source', 'programme', 'oops'],
+  { minLength: 1 },
+);
+
+function tableArbitrary(headers: fc.Arbitrary<string[]>, cells: fc.Arbitrary<string>): fc.Arbitrary<string> {
+  return headers.chain((header) =>
+    fc
+      .tuple(fc.array(fc.array(cells, { minLength: Math.max(0, header.length - 1), maxLength: header.length + 1 }), { maxLength: 12 }), fc.constantFrom('\n', '\r\n'))
+      .map(([rows, newline]) => toCsv([header, ...rows], newline)),
+  );
+}
+
+describe('fuzzing the readers (fast-check): no uncaught exception, accepted + rejected = total, every rejection has its row', () => {
+  it(`readCsv round-trips any table of strings (${RUNS} cases)`, () => {
+    const seed = seedFor('readCsv');
+    fc.assert(
+      fc.property(fc.array(fc.array(fc.string({ unit: 'grapheme' }), { minLength: 1, maxLength: 5 }), { minLength: 1, maxLength: 8 }), fc.constantFrom('\n', '\r\n'), (records, newline) => {
+        // A record that is one empty field serialises to an empty line, which the reader skips (documented).
+        const kept = records.filter((r) => !(r.length === 1 && r[0] === ''));
+        const { records: read, problems } = readCsv(toCsv(kept, newline));
+        expect(problems).toEqual([]);
+        expect(read.map((r) => r.fields)).toEqual(kept);
+      }),
+      { numRuns: RUNS, seed },
+    );
+    fc.assert(fc.property(fc.string(), (text) => void readCsv(text)), { numRuns: RUNS, seed });
+  });
+
+  it(`parseTransitLog on random bytes and on structured tables (${RUNS} + ${RUNS} cases)`, () => {
+    const seed = seedFor('parseTransitLog');
+    const options = { fileName: 'fuzz.csv', knownStarIds: new Set(['K-1']), nightClockS: { start: 0, end: 100_000 } };
+    fc.assert(fc.property(fc.uint8Array({ maxLength: 300 }), (b) => checkInvariants(parseTransitLog(b, options))), { numRuns: RUNS, seed });
+    fc.assert(fc.property(tableArbitrary(transitHeaders, transitCells), (text) => checkInvariants(parseTransitLog(encoder.encode(text), options))), { numRuns: RUNS, seed });
+  });
+
+  it(`parseStarList on random bytes and on structured tables (${RUNS} + ${RUNS} cases)`, () => {
+    const seed = seedFor('parseStarList');
+    fc.assert(fc.property(fc.uint8Array({ maxLength: 300 }), (b) => checkInvariants(parseStarList(b, 'fuzz.csv'))), { numRuns: RUNS, seed });
+    fc.assert(fc.property(tableArbitrary(starHeaders, starCells), (text) => checkInvariants(parseStarList(encoder.encode(text), 'fuzz.csv'))), { numRuns: RUNS, seed });
+  });
+
+  it(`parseSiteDescription on random JSON and random bytes (${RUNS} + ${RUNS} cases)`, () => {
+    const seed = seedFor('parseSiteDescription');
+    const check = (b: Uint8Array): void => {
+      const r = parseSiteDescription(b, 'fuzz.json');
+      expect(r.rows.length + (r.rejected.some((x) => x.row === 1) ? 1 : 0)).toBe(r.totalRows);
+      for (const x of r.rejected) expect(x.reason.length).toBeGreaterThan(0);
+    };
+    const instrument = fc.record({
+      id: fc.constantFrom('a', 'b', ''), label: fc.string(), kind: fc.constantFrom('transit', 'zenith-tube', 'fixed-camera', 'x'),
+      wireIntervalsS: fc.array(fc.oneof(fc.double(), fc.string())), effectiveWavelengthUm: fc.oneof(fc.double(), fc.constant(0.55)),
+      clockId: fc.string(), clockTimeScale: fc.constantFrom('sidereal', 'mean-solar', 'solar'), events: fc.array(fc.jsonValue(), { maxLength: 2 }),
+    }, { requiredKeys: [] });
+    const doc = fc.record({ formatVersion: fc.constantFrom(1, 2), site: fc.jsonValue(), instruments: fc.array(instrument, { maxLength: 3 }) }, { requiredKeys: [] });
+    fc.assert(fc.property(fc.oneof(doc, fc.jsonValue()), (v) => check(encoder.encode(JSON.stringify(v) ?? 'null'))), { numRuns: RUNS, seed });
+    fc.assert(fc.property(fc.uint8Array({ maxLength: 200 }), check), { numRuns: RUNS, seed });
+  });
+});
