@@ -8,7 +8,7 @@ import type { ClampPosition, Culmination } from './culmination.ts';
  * much slower than the stars' hour angle; the precession part of sidereal rate (1e-7) is
  * negligible over a wire interval.
  */
-export const STELLAR_REVOLUTIONS_PER_UT1_DAY = 1.00273781191135448;
+export const STELLAR_REVOLUTIONS_PER_UT1_DAY = 1.002737811911354; // 1.00273781191135448 to double precision
 
 /** What the clock counts: sidereal seconds or mean solar (UTC-like) seconds. */
 export type ClockTimeScale = 'sidereal' | 'mean-solar';

@@ -44,7 +44,7 @@ describe('parseSiteDescription', () => {
     expect(r.warnings.join(' ')).toMatch(/\/: unknown key\(s\) ignored: colour/);
   });
   it('names every bad field by its JSON pointer', () => {
-    const bad = structuredClone(good) as Record<string, any>; // any: deliberately corrupting a plain JSON object
+    const bad = structuredClone(good);
     bad.site.latitudeDeg = 91;
     bad.instruments[0].kind = 'meridian';
     bad.instruments[0].events[0].date = '2025-13-02';
