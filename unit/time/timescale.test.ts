@@ -44,7 +44,8 @@ describe('UTC round trips (UTC → TAI → UTC, and through TT)', () => {
   it('UTC → TT → UTC returns the input to 1 µs across leap seconds, in ISO text', () => {
     const texts = ['2016-12-31T23:59:59.999999Z', '2016-12-31T23:59:60.000000Z', '2016-12-31T23:59:60.500000Z',
       '2016-12-31T23:59:60.999999Z', '2017-01-01T00:00:00.000000Z', '1972-06-30T23:59:60.250000Z',
-      '1965-03-01T00:00:00.000001Z', '2088-02-29T12:34:56.789012Z'];
+      '1965-03-01T00:00:00.000001Z', '2088-02-29T12:34:56.789012Z',
+      '1961-07-31T23:59:59.949999Z']; // that day was 0.05 s short (USNO tai-utc.dat, 1961 AUG 1)
     for (const text of texts) {
       const there = scale.fromIsoUtc(text);
       const back = scale.fromTt(there.tt);
@@ -87,6 +88,8 @@ describe('leap seconds in ISO text', () => {
     expect(() => parseIsoUtc('2015-12-31T23:59:60Z', BUNDLED_LEAP_SECONDS)).toThrow(/does not exist .*no leap second at the end of 2015-12-31/);
     expect(() => parseIsoUtc('2016-12-31T23:59:61Z', BUNDLED_LEAP_SECONDS)).toThrow(/does not exist/);
     expect(() => parseIsoUtc('2016-12-31T12:00:60Z', BUNDLED_LEAP_SECONDS)).toThrow(/below 60 outside the last minute/);
+    // USNO tai-utc.dat: TAI − UTC fell by 0.05 s on 1961 Aug 1, so 1961-07-31 ended at 23:59:59.95.
+    expect(() => parseIsoUtc('1961-07-31T23:59:59.95Z', BUNDLED_LEAP_SECONDS)).toThrow(/negative leap second/);
   });
 
   it('refuses a time without a zone and an impossible date', () => {
