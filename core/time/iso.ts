@@ -86,7 +86,7 @@ export function utcFieldsToJulianDate(
       : leapSeconds > 0
         ? `the leap second of ${date} ends at 23:59:61`
         : leapSeconds < 0
-          ? `${date} ends with a negative leap second, so 23:59:59 does not exist`
+          ? `${date} ends with a negative leap second: its last minute stops at 23:59:${(60 + leapSeconds).toFixed(3)}`
           : `${table.sourceName} has no leap second at the end of ${date}`;
     throw new RangeError(`${what}: second ${second} of ${pad(hour, 2)}:${pad(minute, 2)} UTC on ${date} does not exist (${reason})`);
   }
@@ -103,7 +103,9 @@ export function julianDateToUtcFields(
   if (!Number.isInteger(fractionDigits) || fractionDigits < 0 || fractionDigits > 9) {
     throw new RangeError(`formatIsoUtc: fractionDigits must be an integer 0–9, got ${fractionDigits}`);
   }
-  let { mjdDay, dayFraction } = splitMjdDay(utc);
+  const split = splitMjdDay(utc);
+  const dayFraction = split.dayFraction;
+  let mjdDay = split.mjdDay;
   const leap = table.covers(mjdDay) ? table.leapAtEndOfDaySeconds(mjdDay) : 0;
   const unitsPerSecond = 10 ** fractionDigits;
   // Round once, in integer units of the last printed digit, so that carries are exact.
