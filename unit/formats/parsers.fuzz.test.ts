@@ -47,12 +47,23 @@ const starHeaders = fc.shuffledSubarray(
   { minLength: 1 },
 );
 
+/** Plausible values per column, so the accepting paths are reached as well as the rejecting ones. */
+const VALID: Record<string, readonly string[]> = {
+  starId: ['K-1'], culmination: ['upper', 'lower'], clamp: ['east', 'west', ''], wire1Utc: [''], wire2Utc: [''],
+  wire1ClockS: ['75010.5', '80000'], wireTimesClockS: ['75010;;75020', '1.5'], micrometerTurns: ['12.5', ''], zenithDistanceDeg: ['', '45'],
+  pressureHpa: ['1013', ''], flags: ['', 'cloud'], note: ['fine, "dry"', ''], extra: ['x'], nightDate: ['2026-03-14', ''],
+  id: ['S-1', 'S-2', 'S-3'], label: ['a star'], raDeg: ['10', '359.9'], decDeg: ['45.5', '-89'], epochJyear: ['2016.0'],
+  pmRaCosDecMasYr: ['-5', ''], pmDecMasYr: ['3'], parallaxMas: ['0.5', ''], parallaxSigmaMas: ['0.1'], radialVelocityKmS: ['-20'],
+  magnitude: ['5'], source: ['invented'], programme: ['p1;p2'], oops: ['?'],
+};
+
 function tableArbitrary(headers: fc.Arbitrary<string[]>, cells: fc.Arbitrary<string>): fc.Arbitrary<string> {
-  return headers.chain((header) =>
-    fc
-      .tuple(fc.array(fc.array(cells, { minLength: Math.max(0, header.length - 1), maxLength: header.length + 1 }), { maxLength: 12 }), fc.constantFrom('\n', '\r\n'))
-      .map(([rows, newline]) => toCsv([header, ...rows], newline)),
-  );
+  return headers.chain((header) => {
+    const goodRow = fc.tuple(...header.map((name) => fc.oneof({ weight: 6, arbitrary: fc.constantFrom(...(VALID[name] ?? [''])) }, { weight: 1, arbitrary: cells })));
+    const anyRow = fc.array(cells, { minLength: Math.max(0, header.length - 1), maxLength: header.length + 1 });
+    const row = fc.oneof({ weight: 4, arbitrary: goodRow.map((r) => [...r]) }, { weight: 1, arbitrary: anyRow });
+    return fc.tuple(fc.array(row, { maxLength: 12 }), fc.constantFrom('\n', '\r\n')).map(([rows, newline]) => toCsv([header, ...rows], newline));
+  });
 }
 
 describe('fuzzing the readers (fast-check): no uncaught exception, accepted + rejected = total, every rejection has its row', () => {
@@ -75,13 +86,32 @@ describe('fuzzing the readers (fast-check): no uncaught exception, accepted + re
     const seed = seedFor('parseTransitLog');
     const options = { fileName: 'fuzz.csv', knownStarIds: new Set(['K-1']), nightClockS: { start: 0, end: 100_000 } };
     fc.assert(fc.property(fc.uint8Array({ maxLength: 300 }), (b) => checkInvariants(parseTransitLog(b, options))), { numRuns: RUNS, seed });
-    fc.assert(fc.property(tableArbitrary(transitHeaders, transitCells), (text) => checkInvariants(parseTransitLog(encoder.encode(text), options))), { numRuns: RUNS, seed });
+    let accepted = 0;
+    fc.assert(
+      fc.property(tableArbitrary(transitHeaders, transitCells), (text) => {
+        const result = parseTransitLog(encoder.encode(text), options);
+        accepted += result.rows.length;
+        checkInvariants(result);
+      }),
+      { numRuns: RUNS, seed },
+    );
+    // The generator must reach the accepting paths too, or the fuzzing proves little.
+    expect(accepted).toBeGreaterThan(0);
   });
 
   it(`parseStarList on random bytes and on structured tables (${RUNS} + ${RUNS} cases)`, () => {
     const seed = seedFor('parseStarList');
     fc.assert(fc.property(fc.uint8Array({ maxLength: 300 }), (b) => checkInvariants(parseStarList(b, 'fuzz.csv'))), { numRuns: RUNS, seed });
-    fc.assert(fc.property(tableArbitrary(starHeaders, starCells), (text) => checkInvariants(parseStarList(encoder.encode(text), 'fuzz.csv'))), { numRuns: RUNS, seed });
+    let accepted = 0;
+    fc.assert(
+      fc.property(tableArbitrary(starHeaders, starCells), (text) => {
+        const result = parseStarList(encoder.encode(text), 'fuzz.csv');
+        accepted += result.rows.length;
+        checkInvariants(result);
+      }),
+      { numRuns: RUNS, seed },
+    );
+    expect(accepted).toBeGreaterThan(0);
   });
 
   it(`parseSiteDescription on random JSON and random bytes (${RUNS} + ${RUNS} cases)`, () => {
@@ -91,13 +121,25 @@ describe('fuzzing the readers (fast-check): no uncaught exception, accepted + re
       expect(r.rows.length + (r.rejected.some((x) => x.row === 1) ? 1 : 0)).toBe(r.totalRows);
       for (const x of r.rejected) expect(x.reason.length).toBeGreaterThan(0);
     };
+    const mostly = <T,>(good: T, other: fc.Arbitrary<unknown>): fc.Arbitrary<unknown> => fc.oneof({ weight: 5, arbitrary: fc.constant(good) }, { weight: 1, arbitrary: other });
     const instrument = fc.record({
-      id: fc.constantFrom('a', 'b', ''), label: fc.string(), kind: fc.constantFrom('transit', 'zenith-tube', 'fixed-camera', 'x'),
-      wireIntervalsS: fc.array(fc.oneof(fc.double(), fc.string())), effectiveWavelengthUm: fc.oneof(fc.double(), fc.constant(0.55)),
-      clockId: fc.string(), clockTimeScale: fc.constantFrom('sidereal', 'mean-solar', 'solar'), events: fc.array(fc.jsonValue(), { maxLength: 2 }),
+      id: fc.constantFrom('a', 'b', ''), label: mostly('T', fc.string()), kind: fc.constantFrom('transit', 'zenith-tube', 'fixed-camera', 'x'),
+      wireIntervalsS: mostly([10, 0, -10], fc.array(fc.oneof(fc.double(), fc.string()))), effectiveWavelengthUm: mostly(0.55, fc.double()),
+      clockId: mostly('c', fc.string()), clockTimeScale: fc.constantFrom('sidereal', 'mean-solar', 'solar'),
+      events: mostly([{ date: '2025-01-02', kind: 'other', note: '' }], fc.array(fc.jsonValue(), { maxLength: 2 })),
     }, { requiredKeys: [] });
-    const doc = fc.record({ formatVersion: fc.constantFrom(1, 2), site: fc.jsonValue(), instruments: fc.array(instrument, { maxLength: 3 }) }, { requiredKeys: [] });
-    fc.assert(fc.property(fc.oneof(doc, fc.jsonValue()), (v) => check(encoder.encode(JSON.stringify(v) ?? 'null'))), { numRuns: RUNS, seed });
+    const site = { id: 's', label: 'S', latitudeDeg: 47, longitudeDeg: 8, heightM: 600 };
+    const doc = fc.record({ formatVersion: fc.constantFrom(1, 2), site: mostly(site, fc.jsonValue()), instruments: fc.array(instrument, { maxLength: 3 }) }, { requiredKeys: [] });
+    let accepted = 0;
+    fc.assert(
+      fc.property(fc.oneof(doc, fc.jsonValue()), (v) => {
+        const b = encoder.encode(JSON.stringify(v) ?? 'null');
+        check(b);
+        accepted += parseSiteDescription(b, 'fuzz.json').rows.length;
+      }),
+      { numRuns: RUNS, seed },
+    );
+    expect(accepted).toBeGreaterThan(0);
     fc.assert(fc.property(fc.uint8Array({ maxLength: 200 }), check), { numRuns: RUNS, seed });
   });
 });

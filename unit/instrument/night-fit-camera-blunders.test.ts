@@ -126,3 +126,18 @@ describe('blunderHints: planted blunders are named with the right cause', () => 
     expect(blunderHints({ ...base, timeResidualS: 0.05, zenithResidualRad: 0.4 * ARCSEC })).toEqual([]);
   });
 });
+
+describe('reduceCameraCrossing against the exact sphere', () => {
+  it('δ = 60°, mean-solar clock: the star at the crossing lies ξ from the meridian plane, and meridian time follows', () => {
+    const camera = { scaleArcsecPerPx: 2, orientationDeg: 30, parity: -1 as const, opticalCentrePx: [500, 400] as const, referenceColumnPx: 380 };
+    const dec = 60 * DEG;
+    const r = reduceCameraCrossing(1000, 450, dec, camera, 'mean-solar');
+    // Hand evaluation of the mapping: dx = −1·(380 − 500) = 120 px, dy = 50 px, θ = 30°:
+    // ξ = 2″(120 cos 30° + 50 sin 30°) = 257.846″, η = 2″(−120 sin 30° + 50 cos 30°) = −33.397″.
+    expect(r.alongTrackRad / ARCSEC).toBeCloseTo(257.8461, 3);
+    expect(r.zenithOffsetRad / ARCSEC).toBeCloseTo(-33.3975, 3);
+    const hourAngle = ((1000 - r.meridianTimeS) * 1.002737811911354) * SECOND_OF_TIME_ANGLE;
+    // Distance of the star at that hour angle from the meridian plane: asin(cos δ sin h) must equal ξ.
+    expect(Math.abs(Math.asin(Math.cos(dec) * Math.sin(hourAngle)) - r.alongTrackRad)).toBeLessThan(1e-12);
+  });
+});
