@@ -164,8 +164,8 @@ export function parseIersFinals(text: string, sourceName: string): EarthOrientat
  * Parse an IERS C04 series (Paris Observatory EOP Product Center): the "EOP 14 C04" layout
  * (eopc04_IAU2000.62-now: year, month, day, MJD, x, y, UT1−UTC, LOD, dX, dY and six errors: 16
  * fields) and the "EOP 20 C04" layout (year, month, day, hour, MJD, x, y, UT1−UTC, dX, dY, x-rate,
- * y-rate, LOD and eight errors: 21 fields; layout from memory of the IERS description, checked only
- * on our own sample lines). Fields are white-space separated; header lines (not starting with a
+ * y-rate, LOD and eight errors: 21 fields, the order of the IERS file header; no real 20 C04 file
+ * was at hand, so it is tested on real values rearranged in that order). Fields are white-space separated; header lines (not starting with a
  * year) are skipped; a data line with another field count, or whose MJD disagrees with its
  * calendar date, is rejected with its line number. All values are final (observed).
  */

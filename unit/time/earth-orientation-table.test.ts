@@ -57,6 +57,26 @@ describe('parseIersC04 on the bundled IERS EOP 14 C04 file', () => {
   });
 });
 
+describe('parseIersC04 on the EOP 20 C04 field order', () => {
+  it('reads year, month, day, hour, MJD, x, y, UT1−UTC, dX, dY, rates, LOD and 8 errors', () => {
+    // Real 14 C04 values of 2016-04-25/26 (assets file) rearranged in the 20 C04 order; the rates
+    // and errors are not read, so their columns hold the 14 C04 error values only as fillers.
+    const lines = [
+      '# header line of the file',
+      '2016   4  25   0  57503.00   0.027052   0.463501  -0.1265210   0.000109   0.000140   0.000000   0.000000   0.0013205   0.000061   0.000046  0.0000144   0.000049   0.000047   0.000000   0.000000  0.0000151',
+      '2016   4  26   0  57504.00   0.028032   0.465383  -0.1278100   0.000130   0.000158   0.000000   0.000000   0.0012194   0.000061   0.000046  0.0000125   0.000049   0.000048   0.000000   0.000000  0.0000151',
+    ];
+    const table = parseIersC04(lines.join('\n'), '20 C04 sample');
+    for (const mjd of [57503, 57504]) {
+      expect(table.at(mjd).dut1Seconds).toBeCloseTo(c04.at(mjd).dut1Seconds, 12);
+      expect(table.at(mjd).xpRad).toBeCloseTo(c04.at(mjd).xpRad, 15);
+      expect(table.at(mjd).ypRad).toBeCloseTo(c04.at(mjd).ypRad, 15);
+    }
+    const wrongCount = lines[1].replace(/ +0\.0000151$/, '');
+    expect(() => parseIersC04(wrongCount + '\n' + lines[2], 'short')).toThrow(/short, line 1: a C04 line has 16 .* or 21 .* fields, this one has 20/);
+  });
+});
+
 describe('parseIersFinals (IERS finals2000A layout)', () => {
   const finals = parseIersFinals(FINALS_EXCERPT, 'finals excerpt');
 
