@@ -2,7 +2,7 @@
  * Leading terms of the Fairhead & Bretagnon (1990) analytical series for TDB − TT at the geocentre,
  * as tabulated in the IAU SOFA / ERFA routine dtdb (table FAIRHD, 787 terms). We keep the 75 terms whose
  * amplitude times |T|^n (with |T| ≤ 0.1 millennium, i.e. 1900–2100) is at least 0.02 µs; measured
- * against the full series (erfa.dtdb) over 1900–2100 the truncation error is 0.18 µs at most.
+ * against the full series (erfa.dtdb) over 1900–2100 the truncation error is about 0.2 µs at most.
  *
  * One row per term: amplitude in seconds, frequency in radians per Julian millennium TDB, phase in
  * radians, and the power n of T (Julian millennia since J2000) that multiplies the term.
