@@ -7,7 +7,7 @@
  * under 2 ms: a negligible change of phase. Topocentric terms (≤ 2 µs, depending on the observer's
  * distance from the Earth's axis) are left out.
  * Accuracy: within 0.21 µs of erfa.dtdb (geocentric, full series) over 1900–2100 (measured, see
- * unit/time/tdb.test.ts); about 0.2 µs more per century outside that range.
+ * unit/time/timescale.test.ts); not measured outside that range.
  */
 import type { JulianDate } from './julian-date.ts';
 import { TDB_TERM_COUNT, TDB_TERMS } from './tdb-terms.ts';
