@@ -8,7 +8,7 @@
  *    − 0.000029956″ t⁴ − 0.0000000368″ t⁵, t in Julian centuries TT.
  *  - GAST = GMST + equation of the equinoxes (equation-of-equinoxes-06.ts).
  * All results in radians in [0, 2π). Accuracy: ERA and GMST are definitions (exact to double
- * rounding, about 1 µas, with a two-part UT1); GAST matches IAU SOFA gst06a to a few µas when
+ * rounding, about 1 µas, with a two-part UT1); GAST matches IAU SOFA gst06a to 0.6 µas when
  * given nutation06a (measured in unit/earth/earth-orientation.test.ts).
  */
 import { julianCenturiesSinceJ2000, type JulianDate } from '../time/julian-date.ts';
