@@ -1,10 +1,5 @@
-import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { defineConfig, type Plugin } from 'vite';
 import { svelte } from '@sveltejs/vite-plugin-svelte';
-
-const rendererRoot = fileURLToPath(new URL('.', import.meta.url));
-const packageJson = JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8')) as { version: string };
 
 /**
  * The dev server injects component styles as <style> elements, which the page's policy refuses;
@@ -18,11 +13,27 @@ function relaxStylePolicyInDev(): Plugin {
   };
 }
 
-export default defineConfig({
-  root: rendererRoot,
+/**
+ * The package version for the About line. npm and npx set npm_package_version from package.json
+ * (this file may not import package.json: the layering rule keeps renderer/ to renderer/ and core/).
+ * Only a build needs it; `vite preview` serves files already built.
+ */
+function appVersion(command: 'build' | 'serve', isPreview: boolean): string {
+  const version = process.env.npm_package_version;
+  if (version !== undefined) return version;
+  if (command === 'serve' && isPreview) return 'preview';
+  throw new Error(
+    'renderer/vite.config.ts: npm_package_version is not set, so the app version is unknown. ' +
+      'Build with `npm run build:renderer` (or `npx vite build --config renderer/vite.config.ts`).',
+  );
+}
+
+// Paths are relative to the repository root, where every npm script and serve-web.mjs run.
+export default defineConfig(({ command, isPreview }) => ({
+  root: 'renderer',
   base: './',
   plugins: [svelte(), relaxStylePolicyInDev()],
-  define: { __APP_VERSION__: JSON.stringify(packageJson.version) },
+  define: { __APP_VERSION__: JSON.stringify(appVersion(command, isPreview === true)) },
   worker: { format: 'es' },
   build: {
     outDir: '../dist/renderer',
@@ -31,4 +42,4 @@ export default defineConfig({
     // No inline data: assets: every file comes from 'self'.
     assetsInlineLimit: 0,
   },
-});
+}));

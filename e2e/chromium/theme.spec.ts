@@ -1,7 +1,8 @@
+import type { Page } from '@playwright/test';
 import { expect, openApp, test, VIEW_LABELS } from './fixtures.ts';
 import { findNonRedColours, scanScreenshot } from './nightColours.ts';
 
-const theme = (page: import('@playwright/test').Page) => page.locator('html').getAttribute('data-theme');
+const theme = (page: Page) => page.locator('html').getAttribute('data-theme');
 
 test('Alt+N toggles night mode, returns to the daytime theme chosen, and the choice survives a reload', async ({ page }) => {
   await openApp(page);

@@ -1,6 +1,7 @@
 import type { ArchiveDatabase } from '../store/database.ts';
 import type { ArchiveOpenFailure } from '../store/describeOpenFailure.ts';
 import { openArchive } from '../store/openArchive.ts';
+import { nowUtcIso } from '../store/nowUtcIso.ts';
 import { sweepInterruptedImports } from '../store/importStaging.ts';
 import { requestStorageStatus, type StorageManagerLike, type StorageStatus } from '../store/storageStatus.ts';
 
@@ -18,7 +19,7 @@ export class ArchiveState {
     const result = await openArchive(databaseName);
     if (result.kind === 'open') {
       this.database = result.database;
-      this.sweptImports = await sweepInterruptedImports(result.database, new Date().toISOString());
+      this.sweptImports = await sweepInterruptedImports(result.database, nowUtcIso());
     } else {
       this.failure = result.failure;
     }

@@ -1,6 +1,7 @@
 import type { SiteRecord } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import type { SiteDraft } from './parseSiteForm.ts';
+import { nowUtcIso } from '../store/nowUtcIso.ts';
 
 /** The visible sites of the archive, in label order, and adding one. */
 export class SiteStore {
@@ -24,7 +25,7 @@ export class SiteStore {
 
   /** Writes a new site and reloads the list; the returned promise rejects if the write fails. */
   async add(draft: SiteDraft): Promise<SiteRecord> {
-    const now = new Date().toISOString();
+    const now = nowUtcIso();
     const record: SiteRecord = {
       id: crypto.randomUUID(),
       ...draft,

@@ -6,7 +6,7 @@
     if (saved === 'day' || saved === 'dark' || saved === 'night') {
       document.documentElement.setAttribute('data-theme', saved);
     }
-  } catch (error) {
+  } catch {
     // Storage may be blocked (privacy settings); the day theme stays until the app reports it.
   }
 })();

@@ -13,6 +13,14 @@ import {
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import { DEG, UAS } from '../../core/units.ts';
 
+/**
+ * astronomia ships no types; unit/astrometry declares 'astronomia/coord' without toEcliptic, so the
+ * method used here is typed locally (coord.js: Equatorial.prototype.toEcliptic(ε), Meeus 13.1–13.2).
+ */
+interface MeeusEquatorial {
+  toEcliptic(obliquityRad: number): { readonly lon: number; readonly lat: number };
+}
+
 const nextTurn = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
 /**
@@ -45,7 +53,7 @@ describe('equatorialToEcliptic(raRad, decRad, obliquityRad)', () => {
       const raRad = 2 * Math.PI * random();
       const decRad = Math.asin(2 * random() - 1) * 0.999; // keep clear of the poles, where λ is undefined
       const ours = equatorialToEcliptic(raRad, decRad, MEAN_OBLIQUITY_J2000_RAD);
-      const theirs = new Equatorial(raRad, decRad).toEcliptic(MEAN_OBLIQUITY_J2000_RAD);
+      const theirs = (new Equatorial(raRad, decRad) as unknown as MeeusEquatorial).toEcliptic(MEAN_OBLIQUITY_J2000_RAD);
       const dLon = Math.atan2(Math.sin(ours.longitudeRad - theirs.lon), Math.cos(ours.longitudeRad - theirs.lon));
       expect(Math.abs(dLon * Math.cos(ours.latitudeRad))).toBeLessThan(1 * UAS);
       expect(Math.abs(ours.latitudeRad - theirs.lat)).toBeLessThan(1 * UAS);
@@ -90,8 +98,9 @@ describe('WorkerDispatcher and ComputeClient', () => {
   test('cancel() after the first progress stops the job before the end', async () => {
     const { client, dispatcher } = connectedPair();
     const starCount = 100 * ECLIPTIC_FIELD_CHUNK;
-    let job: ReturnType<ComputeClient['run']> | undefined;
-    job = client.run({ kind: 'ecliptic-field', starCount, seed: 3 }, () => job?.cancel());
+    const started: { job?: ReturnType<ComputeClient['run']> } = {};
+    const job = client.run({ kind: 'ecliptic-field', starCount, seed: 3 }, () => started.job?.cancel());
+    started.job = job;
     const outcome = await job.outcome;
     expect(outcome.kind).toBe('cancelled');
     if (outcome.kind !== 'cancelled') return;
