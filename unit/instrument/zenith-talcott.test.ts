@@ -17,12 +17,12 @@ interface TalcottCase {
   southZenithDistanceRad: number;
   northZenithDistanceRad: number;
 }
-const fixturePath = new URL('./fixtures/instrument-erfa.json', import.meta.url);
+const fixturePath = new URL('../fixtures/erfa_instrument.json', import.meta.url);
 function talcottCases(): TalcottCase[] {
   try {
     return JSON.parse(readFileSync(fixturePath, 'utf8')).talcott;
   } catch (error) {
-    throw new Error(`missing reference ${fixturePath.pathname}: run /usr/bin/python3 unit/instrument/fixtures/generate_instrument_fixtures.py (${String(error)})`);
+    throw new Error(`missing reference ${fixturePath.pathname}: run npm run fixtures (${String(error)})`);
   }
 }
 
