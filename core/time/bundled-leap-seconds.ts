@@ -1,16 +1,16 @@
 /**
  * The leap-second table bundled with the app: the data lines and the '#$', '#@' and '#h' lines of
- * the IERS leap-seconds.list in assets/leap-seconds.list (taken from Debian's tzdata 2025b package,
- * which carries the IERS file unchanged). Last update NTP 3960835200 (2025-07-08); expires 2026-06-28
- * (NTP 3991593600). After that date TimeScale warns that a newer list is needed.
+ * the IERS leap-seconds.list in assets/leap-seconds.list (taken from Debian's tzdata 2026f package,
+ * which carries the IERS file unchanged). Last update NTP 3992312697 (2026-07-06); expires 2027-06-28
+ * (NTP 4023129600). After that date TimeScale warns that a newer list is needed.
  * The '#h' hash is checked on parsing, and a unit test checks this text against the asset file.
  */
 import { parseLeapSecondsList } from './parse-leap-seconds-list.ts';
 import type { LeapSecondTable } from './leap-seconds.ts';
 
 const BUNDLED_LEAP_SECONDS_TEXT = `
-#$	3960835200
-#@	3991593600
+#$	3992312697
+#@	4023129600
 2272060800      10      # 1 Jan 1972
 2287785600      11      # 1 Jul 1972
 2303683200      12      # 1 Jan 1973
@@ -39,11 +39,11 @@ const BUNDLED_LEAP_SECONDS_TEXT = `
 3550089600      35      # 1 Jul 2012
 3644697600      36      # 1 Jul 2015
 3692217600      37      # 1 Jan 2017
-#h	49db2447 571e5e1b 2f002a53 9c8da8e4 39b8e49e
+#h	a9bad145 84c31c70 758402aa b37bfd54 5923836a
 `;
 
-/** The bundled IERS leap-second table (valid until 2026-06-28, see the header). */
+/** The bundled IERS leap-second table (valid until 2027-06-28, see the header). */
 export const BUNDLED_LEAP_SECONDS: LeapSecondTable = parseLeapSecondsList(
   BUNDLED_LEAP_SECONDS_TEXT,
-  "bundled IERS leap-seconds.list (expires 2026-06-28)",
+  "bundled IERS leap-seconds.list (expires 2027-06-28)",
 );

@@ -14,7 +14,7 @@ describe('parseLeapSecondsList', () => {
     const table = parseLeapSecondsList(assetText, 'assets/leap-seconds.list');
     // 28 integral steps 1972-2017 (IERS Bulletin C 1–69) plus the 14 rubber-second expressions.
     expect(table.steps.length).toBe(28 + 14);
-    expect(table.expiresMjd).toBe(calendarDayToMjd(2026, 6, 28)); // "File expires on 28 June 2026"
+    expect(table.expiresMjd).toBe(calendarDayToMjd(2027, 6, 28)); // "File expires on 28 June 2027"
     expect(table.valueOnDay(calendarDayToMjd(2017, 1, 1), 0)).toBe(37); // IERS Bulletin C 52
   });
 
