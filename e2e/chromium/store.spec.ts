@@ -68,3 +68,41 @@ test('a site survives closing and relaunching Chromium on the same profile', asy
     await rm(profile, { recursive: true, force: true });
   }
 });
+
+test('an archive written by a newer version is refused with advice, and its data is left alone', async ({ page }) => {
+  await openApp(page);
+  // Close the app's connection first by leaving for a plain file of the same origin (whose
+  // automatic /favicon.ico request is answered here, since the app itself uses favicon.svg).
+  await page.route('**/favicon.ico', (route) => route.fulfill({ status: 204 }));
+  await page.goto('./favicon.svg');
+  await page.evaluate(async () => {
+    await new Promise<void>((resolve, reject) => {
+      const deletion = indexedDB.deleteDatabase('meridian-ledger-archive');
+      deletion.onsuccess = () => resolve();
+      deletion.onerror = () => reject(deletion.error);
+    });
+    await new Promise<void>((resolve, reject) => {
+      // Schema version 3 in Dexie's numbering (IndexedDB version 30), with one row in it.
+      const request = indexedDB.open('meridian-ledger-archive', 30);
+      request.onupgradeneeded = () => request.result.createObjectStore('sites', { keyPath: 'id' }).put({ id: 'future-row' });
+      request.onsuccess = () => { request.result.close(); resolve(); };
+      request.onerror = () => reject(request.error);
+    });
+  });
+  await page.goto('./#/archive');
+  const banner = page.getByTestId('archive-failure');
+  await expect(banner).toContainText('This archive was written by a newer version of Meridian Ledger');
+  await expect(banner).toContainText('schema version 3');
+  await expect(banner).toContainText('Nothing in the archive was changed or deleted.');
+  await expect(page.getByText('The archive is not open; see the message above.')).toBeVisible();
+  await page.screenshot({ path: 'e2e-output/screenshots/day-archive-refused.png' });
+  const kept = await page.evaluate(() => new Promise<number>((resolve, reject) => {
+    const request = indexedDB.open('meridian-ledger-archive');
+    request.onsuccess = () => {
+      const count = request.result.transaction('sites').objectStore('sites').count();
+      count.onsuccess = () => { const version = request.result.version; request.result.close(); resolve(count.result * 1000 + version); };
+    };
+    request.onerror = () => reject(request.error);
+  }));
+  expect(kept).toBe(1 * 1000 + 30); // one row, still at version 30
+});

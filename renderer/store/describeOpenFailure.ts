@@ -38,7 +38,7 @@ function rootCause(error: NamedError): NamedError {
 const ADVICE: Readonly<Record<string, { readonly title: string; readonly advice: string }>> = {
   VersionError: {
     title: 'This archive was written by a newer version of Meridian Ledger',
-    advice: 'Open it with that newer version (or newer), or install it here.',
+    advice: 'Install that version of Meridian Ledger (or a later one) and open the archive with it.',
   },
   QuotaExceededError: {
     title: 'The browser has no storage space left for the archive',
