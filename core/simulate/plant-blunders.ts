@@ -5,7 +5,7 @@ import type { BlunderKind, PlantedBlunder } from './simulation-truth.ts';
 
 /** A transit as it will be written, open to a blunder. */
 export interface MutableTransit {
-  readonly id: string;
+  id: string;
   starId: string;
   clockMjd: number;
   wireClockMjd: number[];
@@ -21,10 +21,12 @@ const KINDS: readonly BlunderKind[] = ['wire-miscounted', 'turn-slipped', 'star-
  * - `turn-slipped`: the zenith reading is off by one whole micrometer turn (or 10 pixels);
  * - `star-swapped`: the transit is written under another programme star's id (`otherStarId`);
  * - `clock-second`: every time of the transit is off by one whole second (a misread clock).
- * A wire blunder on a transit with no wire times becomes a clock second.
+ * A wire blunder on a transit with fewer than two wire times, or a swap when no other star is free
+ * (`otherStarId` null), becomes a clock second.
  */
-export function plantBlunder(transit: MutableTransit, instrument: InstrumentRecord, otherStarId: string, random: SeededRandom): PlantedBlunder {
+export function plantBlunder(transit: MutableTransit, instrument: InstrumentRecord, otherStarId: string | null, random: SeededRandom): PlantedBlunder {
   let kind = KINDS[random.integer(KINDS.length)];
+  if (kind === 'star-swapped' && otherStarId === null) kind = 'clock-second';
   const observed = transit.wireClockMjd.map((t, k) => (Number.isFinite(t) ? k : -1)).filter((k) => k >= 0);
   if (kind === 'wire-miscounted' && observed.length < 2) kind = 'clock-second';
   if (kind === 'wire-miscounted') {
@@ -46,7 +48,7 @@ export function plantBlunder(transit: MutableTransit, instrument: InstrumentReco
     transit.zenithReadings = transit.zenithReadings.map((r) => r + turns);
     return { transitId: transit.id, kind, detail: `zenith reading off by ${turns > 0 ? '+' : ''}${turns} ${instrument.readingUnit}` };
   }
-  if (kind === 'star-swapped') {
+  if (kind === 'star-swapped' && otherStarId !== null) {
     const trueStarId = transit.starId;
     transit.starId = otherStarId;
     return { transitId: transit.id, kind, detail: `observed ${trueStarId}, written as ${otherStarId}`, trueStarId };

@@ -61,7 +61,8 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
   const drift = initialDrift(driftRandom, startMjd);
   const events: InstrumentEventRecord[] = [];
   const addEvent = (utcMjd: number, kind: InstrumentEventRecord['kind'], note: string): void => {
-    events.push({ id: `event-${String(events.length + 1).padStart(4, '0')}`, instrumentId: instrument.id, utcMjd, kind, note, visibility: 'visible', createdUtc, updatedUtc: createdUtc });
+    // Events are written by date (at 12h UTC), as an instrument log keeps them.
+    events.push({ id: `${instrument.id}-event-${events.length + 1}`, instrumentId: instrument.id, utcMjd: Math.floor(utcMjd) + 0.5, kind, note, visibility: 'visible', createdUtc, updatedUtc: createdUtc });
   };
   const nights: NightRecord[] = [];
   const transits: TransitRecord[] = [];
@@ -95,11 +96,18 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
       visibility: 'visible', createdUtc, updatedUtc: createdUtc,
     });
     const meanCorrectionDays = simulated.clockComparisons.reduce((s, c) => s + c.clockMinusUtcS, 0) / simulated.clockComparisons.length / 86_400;
+    const observedTonight = new Set(simulated.transits.map((t) => t.starIndex));
     for (const t of simulated.transits) {
-      const record: MutableTransit = { id: `transit-${String(transits.length + 1).padStart(6, '0')}`, starId: programme[t.starIndex].catalogue.id, clockMjd: t.clockMjd, wireClockMjd: [...t.wireClockMjd], zenithReadings: [...t.zenithReadings] };
-      if (blunderRandom.chance(options.blunderRate)) {
-        const other = programme[(t.starIndex + 1) % programme.length].catalogue.id;
-        blunders.push(plantBlunder(record, instrument, other, blunderRandom));
+      const record: MutableTransit = { id: '', starId: programme[t.starIndex].catalogue.id, clockMjd: t.clockMjd, wireClockMjd: [...t.wireClockMjd], zenithReadings: [...t.zenithReadings] };
+      const blundered = blunderRandom.chance(options.blunderRate);
+      // A swapped star is one not observed tonight (else the log would hold a duplicate row).
+      let swapTo = -1;
+      for (let k = 1; k < programme.length && swapTo < 0; k++) if (!observedTonight.has((t.starIndex + k) % programme.length)) swapTo = (t.starIndex + k) % programme.length;
+      const blunder = blundered ? plantBlunder(record, instrument, swapTo < 0 ? null : programme[swapTo].catalogue.id, blunderRandom) : null;
+      if (blunder?.kind === 'star-swapped') observedTonight.add(swapTo);
+      record.id = transitId(nightId, record.starId, t.culmination);
+      if (blunder !== null) {
+        blunders.push({ ...blunder, transitId: record.id });
         record.clockMjd = meanWireClockMjd(record.wireClockMjd, instrument.wireIntervalsEquatorialS, t.observedDeclinationRad, t.culmination);
       }
       transits.push({
@@ -124,6 +132,11 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
     stars: programme.map((p) => p.truth), nights: trueNights, blunders,
   };
   return { site, instruments: [instrument], events, stars: programme.map((p) => p.catalogue), nights, transits, truth };
+}
+
+/** The id of a transit: its night, star and culmination (one of each per night, so unique). */
+export function transitId(nightId: string, starId: string, culmination: string): string {
+  return `${nightId}/${starId}/${culmination}`;
 }
 
 function advanceDriftRecording(drift: DriftState, mjd: number, random: SeededRandom, addEvent: (utcMjd: number, kind: InstrumentEventRecord['kind'], note: string) => void): void {

@@ -22,7 +22,8 @@ export interface ProgrammeStar {
  * one star in twelve nearby (80–300 mas) and a proper motion to match (up to ~1″/yr). The star
  * list carries catalogue values = truth + errors with a stated σ per star (position σ 2–25 mas,
  * proper motion σ 0.5–4 mas/yr, parallax σ 0.4–3 mas: an older ground-based catalogue, so a solve
- * has something to correct). Ids "star-NNN", catalogue ids "ML-NNN" (invented).
+ * has something to correct). Ids and catalogue ids "ML-NNN" (invented; the same string, as the
+ * star list file has one id column).
  */
 export function inventStars(count: number, latitudeDeg: number, random: SeededRandom, createdUtc: string): ProgrammeStar[] {
   if (!(latitudeDeg >= 20 && latitudeDeg <= 70)) throw new RangeError(`inventStars: latitude ${latitudeDeg}° is outside the 20–70° N the programme bands are built for`);
@@ -36,8 +37,8 @@ export function inventStars(count: number, latitudeDeg: number, random: SeededRa
     const tangentialKmS = random.between(15, 90);
     const pmTotalMasYr = Math.min((tangentialKmS * parallaxMas) / 4.74, 1100);
     const pmAngle = random.between(0, 2 * Math.PI);
-    const id = `star-${String(index + 1).padStart(3, '0')}`;
     const catalogueId = `ML-${String(index + 1).padStart(3, '0')}`;
+    const id = catalogueId;
     const truth = { id, catalogueId, raDeg, decDeg, epochJulianYear: CATALOGUE_EPOCH_JULIAN_YEAR, parallaxMas,
       pmRaMasYr: pmTotalMasYr * Math.sin(pmAngle), pmDecMasYr: pmTotalMasYr * Math.cos(pmAngle),
       radialVelocityKmS: random.normal(0, 25) };
