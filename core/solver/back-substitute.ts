@@ -3,7 +3,10 @@ import type { BlockWorkspace } from './block-workspace.ts';
 import type { PreparedProblem } from './prepared-problem.ts';
 import type { GlobalSolution } from './solve-globals.ts';
 
-/** Locals, their per-block covariances, post-fit residuals and leverages (all a-priori scale). */
+/**
+ * Locals, their per-block covariances, post-fit residuals and leverages (all a-priori scale).
+ * Without `withCovariance`, localCovariance and leverage stay zero.
+ */
 export interface BackSubstitution {
   /** Local corrections, flat by PreparedProblem.localOffset (fixed locals read 0 here). */
   readonly localEstimate: Float64Array;
@@ -20,11 +23,12 @@ export interface BackSubstitution {
  * Recovers each block's locals l = y − G·g_t − H·λ and their covariance
  *   Cov(l) = A⁻¹ + Z·Q·Zᵀ − H·E⁻¹·Hᵀ,  Cov(l, g) = −Z·Q,  Z = G + H·Fᵀ
  * (block inverse of the bordered normal matrix; Golub & Van Loan §3.2, Schur complements),
- * then each row's residual and leverage. Cost per block l·t² (the G·Q_tt product) + rows.
+ * then each row's residual and leverage. Cost per block l·t² (the G·Q_tt product) + rows;
+ * without covariances only l·t + rows.
  */
 export function backSubstitute(
   prep: PreparedProblem, weight: Float64Array, ws: BlockWorkspace, solution: GlobalSolution,
-  onBlock: (done: number, total: number) => void,
+  withCovariance: boolean, onBlock: (done: number, total: number) => void,
 ): BackSubstitution {
   const n = prep.globalCount;
   const rows = prep.rows;
@@ -50,63 +54,120 @@ export function backSubstitute(
     if (cross.length < l * t) cross = new Float64Array(l * t * 2);
     const local = out.localEstimate.subarray(block < prep.blockCount ? prep.localOffset[block] : 0);
     const covariance = out.localCovariance.subarray(block < prep.blockCount ? covarianceOffset[block] : 0);
-    if (l > 0) blockEstimateAndCovariance(ws, solution, n, prep.localConstraints.length, local, covariance, cross);
+    if (l > 0) blockEstimate(ws, solution, local);
+    if (!withCovariance) {
+      rowResiduals(prep, block, ws, solution, local, out);
+      continue;
+    }
+    if (l > 0) blockCovariance(ws, solution, n, prep.localConstraints.length, covariance, cross);
     rowResidualsAndLeverage(prep, block, weight, ws, solution, local, covariance, cross, out);
   }
   onBlock(total, total);
   return out;
 }
 
-function blockEstimateAndCovariance(
-  ws: BlockWorkspace, s: GlobalSolution, n: number, m: number, local: Float64Array, covariance: Float64Array, cross: Float64Array,
-): void {
+function blockEstimate(ws: BlockWorkspace, s: GlobalSolution, local: Float64Array): void {
   const l = ws.localCount;
   const t = ws.touchedCount;
   const stride = ws.maxLocals;
   const G = ws.gain;
-  const Q = s.covariance;
   for (let a = 0; a < l; a++) {
     let value = ws.solvedLocal[a];
     for (let x = 0; x < t; x++) value -= G[a * t + x] * s.estimate[ws.touched[x]];
     for (let u = 0; u < ws.constraintCount; u++) value -= ws.constraintGain[u * stride + a] * s.multiplier[ws.constraintIndex[u]];
     local[a] = value;
   }
-  // cross = Z·Q restricted to the touched columns: G·Q_tt + H·(Q·F)ᵀ_t
+}
+
+/** Residuals only (no covariance): the cheap back-substitution of intermediate robust passes. */
+function rowResiduals(prep: PreparedProblem, block: number, ws: BlockWorkspace, s: GlobalSolution, local: Float64Array, out: BackSubstitution): void {
+  const rows = prep.rows;
+  const base = block < prep.blockCount ? prep.localOffset[block] : 0;
+  for (let i = prep.groupStart[block]; i < prep.groupStart[block + 1]; i++) {
+    const k = prep.order[i];
+    let v = prep.effectiveResidual[k];
+    for (let p = rows.globalStart[k]; p < rows.globalStart[k + 1]; p++) {
+      const g = rows.globalIndex[p];
+      if (!prep.globalFixed[g]) v -= rows.globalPartial[p] * s.estimate[g];
+    }
+    for (let p = rows.localStart[k]; p < rows.localStart[k + 1]; p++) {
+      const li = rows.localIndex[p];
+      if (!prep.localFixed[base + li]) v -= rows.localPartial[p] * local[li];
+    }
+    out.residual[k] = v;
+  }
+}
+
+function blockCovariance(
+  ws: BlockWorkspace, s: GlobalSolution, n: number, m: number, covariance: Float64Array, cross: Float64Array,
+): void {
+  const l = ws.localCount;
+  const t = ws.touchedCount;
+  const stride = ws.maxLocals;
+  const G = ws.gain;
+  const Q = s.covariance;
+  // cross = Z·Q restricted to the touched columns: G·Q_tt + H·(Q·F)ᵀ_t, with Q_tt gathered once
+  // into contiguous scratch so the l·t² inner loop runs over adjacent memory.
+  const Qtt = gatheredCovariance(ws, Q, n);
   cross.fill(0, 0, l * t);
   for (let a = 0; a < l; a++) {
+    const rowC = a * t;
     for (let b = 0; b < t; b++) {
-      const gab = G[a * t + b];
+      const gab = G[rowC + b];
       if (gab === 0) continue;
-      const rowQ = ws.touched[b] * n;
-      for (let x = 0; x < t; x++) cross[a * t + x] += gab * Q[rowQ + ws.touched[x]];
+      const rowQ = b * t;
+      for (let x = 0; x < t; x++) cross[rowC + x] += gab * Qtt[rowQ + x];
     }
     for (let u = 0; u < ws.constraintCount; u++) {
       const hua = ws.constraintGain[u * stride + a];
       const c = ws.constraintIndex[u];
-      for (let x = 0; x < t; x++) cross[a * t + x] += hua * s.covarianceGain[ws.touched[x] * m + c];
+      for (let x = 0; x < t; x++) cross[rowC + x] += hua * s.covarianceGain[ws.touched[x] * m + c];
+    }
+  }
+  // (Z·Q·F − H·E⁻¹)[a, c_u] for the block's constraints: Σ_x G[a,x]·(QF)[t_x, c_u] + Σ_v H_v[a]·((FᵀQF) − E⁻¹)[c_v, c_u]
+  const cc = ws.constraintCount;
+  const zqf = constraintScratch(l * cc);
+  for (let a = 0; a < l; a++) {
+    for (let u = 0; u < cc; u++) {
+      const cu = ws.constraintIndex[u];
+      let sum = 0;
+      for (let x = 0; x < t; x++) sum += G[a * t + x] * s.covarianceGain[ws.touched[x] * m + cu];
+      for (let v = 0; v < cc; v++) {
+        const cv = ws.constraintIndex[v];
+        sum += ws.constraintGain[v * stride + a] * (s.gainCovariance[cv * m + cu] - s.constraintNormalInverse[cv * m + cu]);
+      }
+      zqf[a * cc + u] = sum;
     }
   }
   for (let a = 0; a < l; a++) {
     for (let b = 0; b <= a; b++) {
       let value = ws.inverseLocal[a * l + b];
       for (let x = 0; x < t; x++) value += cross[a * t + x] * G[b * t + x];
-      for (let u = 0; u < ws.constraintCount; u++) {
-        const cu = ws.constraintIndex[u];
-        // (Z·Q·F)[a, cu] = Σ_x G[a,x]·(QF)[t_x, cu] + Σ_s H_s[a]·(FᵀQF)[c_s, cu]
-        let zqf = 0;
-        for (let x = 0; x < t; x++) zqf += G[a * t + x] * s.covarianceGain[ws.touched[x] * m + cu];
-        let hEinv = 0;
-        for (let v = 0; v < ws.constraintCount; v++) {
-          const cv = ws.constraintIndex[v];
-          zqf += ws.constraintGain[v * stride + a] * s.gainCovariance[cv * m + cu];
-          hEinv += ws.constraintGain[v * stride + a] * s.constraintNormalInverse[cv * m + cu];
-        }
-        value += (zqf - hEinv) * ws.constraintGain[u * stride + b];
-      }
+      for (let u = 0; u < cc; u++) value += zqf[a * cc + u] * ws.constraintGain[u * stride + b];
       covariance[a * l + b] = value;
       covariance[b * l + a] = value;
     }
   }
+}
+
+let qttScratch = new Float64Array(64 * 64);
+let zqfScratch = new Float64Array(64);
+
+function constraintScratch(size: number): Float64Array {
+  if (zqfScratch.length < size) zqfScratch = new Float64Array(size * 2);
+  return zqfScratch;
+}
+
+/** Q restricted to the block's touched globals, t×t contiguous (module scratch; single-threaded). */
+function gatheredCovariance(ws: BlockWorkspace, Q: Float64Array, n: number): Float64Array {
+  const t = ws.touchedCount;
+  if (qttScratch.length < t * t) qttScratch = new Float64Array(t * t * 2);
+  for (let i = 0; i < t; i++) {
+    const rowQ = ws.touched[i] * n;
+    const row = i * t;
+    for (let j = 0; j < t; j++) qttScratch[row + j] = Q[rowQ + ws.touched[j]];
+  }
+  return qttScratch;
 }
 
 function rowResidualsAndLeverage(

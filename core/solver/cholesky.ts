@@ -46,10 +46,12 @@ export function choleskySolveInPlace(factor: Float64Array, n: number, b: Float64
 /**
  * The full symmetric inverse (L·Lᵀ)⁻¹ = L⁻ᵀ·L⁻¹ written into `inverse` (n×n row-major), given
  * the factor from choleskyInPlace. Cost n³/2 multiply-adds after forming L⁻¹ (n³/6).
+ * `scratch` (≥ n² elements) avoids an allocation when called in a loop.
  */
-export function choleskyInverse(factor: Float64Array, n: number, inverse: Float64Array): void {
+export function choleskyInverse(factor: Float64Array, n: number, inverse: Float64Array, scratch?: Float64Array): void {
   // L⁻¹ by forward substitution, column by column, kept in a scratch lower triangle.
-  const lInv = new Float64Array(n * n);
+  const lInv = scratch && scratch.length >= n * n ? scratch : new Float64Array(n * n);
+  lInv.fill(0, 0, n * n);
   for (let j = 0; j < n; j++) {
     lInv[j * n + j] = 1 / factor[j * n + j];
     for (let i = j + 1; i < n; i++) {

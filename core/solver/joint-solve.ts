@@ -21,6 +21,7 @@ interface Pass {
   readonly reduced: ReducedSystem;
   readonly globals: GlobalSolution;
   readonly back: BackSubstitution;
+  readonly exact: boolean;
 }
 
 function maxLocalsAndConstraints(prep: PreparedProblem): { maxLocals: number; maxConstraints: number } {
@@ -78,29 +79,35 @@ export function jointSolve(problem: SolverProblem, options: SolveOptions = {}): 
   let pass: Pass | null = null;
   let converged = !robust;
   let scale = 0;
+  let leverage: Float64Array = new Float64Array(rowCount);
   for (; iteration <= iterationLimit; iteration++) {
     const reduced = reduceBlocks(prep, weight, ws, true, (done, total) => report('reduce', done / total));
     report('solve', 0);
     const globals = solveGlobals(prep, reduced);
     report('solve', 1);
-    const back = backSubstitute(prep, weight, ws, globals, (done, total) => report('back-substitute', done / total));
-    pass = { reduced, globals, back };
+    // Leverages need the per-block covariances (l·t² per block); intermediate robust passes reuse
+    // those of the first pass for the scale's studentisation, and the final pass gets exact ones.
+    const exact = iteration === 1;
+    const back = backSubstitute(prep, weight, ws, globals, exact, (done, total) => report('back-substitute', done / total));
+    if (exact) leverage = back.leverage;
+    pass = { reduced, globals, back, exact };
     if (!robust) break;
-    scale = robustScale(back.residual, baseWeight, back.leverage);
+    scale = robustScale(back.residual, baseWeight, leverage);
     const previous = factor.slice();
-    const change = huberFactors(back.residual, baseWeight, back.leverage, scale, robust.tuning, robust.outlierThreshold, factor, standardized, flag);
-    if (change <= robust.weightTolerance) {
-      converged = true;
+    const change = huberFactors(back.residual, baseWeight, leverage, scale, robust.tuning, robust.outlierThreshold, factor, standardized, flag);
+    if (change <= robust.weightTolerance || iteration === iterationLimit) {
+      converged = change <= robust.weightTolerance;
       factor.set(previous); // the factors of the pass just solved are the ones reported
-      break;
-    }
-    if (iteration === iterationLimit) {
-      factor.set(previous);
       break;
     }
     weight = Float64Array.from(baseWeight, (w, k) => w * factor[k]);
   }
   if (!pass) throw new Error('jointSolve: no pass ran (internal error)');
+  if (!pass.exact) {
+    report('back-substitute', 0);
+    const back = backSubstitute(prep, weight, ws, pass.globals, true, (done, total) => report('back-substitute', done / total));
+    pass = { ...pass, back, exact: true };
+  }
   if (!robust) {
     for (let k = 0; k < rowCount; k++) flag[k] = baseWeight[k] === 0 ? ObservationFlag.rejected : ObservationFlag.fit;
   }

@@ -25,7 +25,7 @@ export interface ReducedSystem {
   readonly singularBlocks: readonly { block: number; vectors: readonly Float64Array[]; relativeEigenvalues: readonly number[] }[];
 }
 
-const BLOCKS_PER_CHUNK = 32;
+const BLOCKS_PER_CHUNK = 128;
 
 function subtractSchur(ws: BlockWorkspace): void {
   // N_tt −= N_ltᵀ·G over the upper triangle; b_t −= N_ltᵀ·y. Cost l·t²/2.

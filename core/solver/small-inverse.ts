@@ -27,24 +27,35 @@ export interface DroppedDirection {
  * information at all) come out with zero rows and columns. Returns the dropped directions
  * (empty when Cholesky succeeded). `matrix` is not modified.
  */
+/** Scratch reused across calls (the solver calls this once per block; single-threaded, not re-entrant). */
+let scratch = { scale: new Float64Array(16), scaled: new Float64Array(256), factor: new Float64Array(256), lower: new Float64Array(256) };
+const NO_DIRECTIONS: DroppedDirection[] = [];
+
 export function symmetricGeneralisedInverse(matrix: Float64Array, n: number, inverse: Float64Array): DroppedDirection[] {
-  const scale = new Float64Array(n);
+  if (scratch.scale.length < n) {
+    scratch = { scale: new Float64Array(n), scaled: new Float64Array(n * n), factor: new Float64Array(n * n), lower: new Float64Array(n * n) };
+  }
+  const { scale, scaled, factor } = scratch;
+  let hasEmpty = false;
   for (let i = 0; i < n; i++) {
     const diagonal = matrix[i * n + i];
     scale[i] = diagonal > 0 ? 1 / Math.sqrt(diagonal) : 0;
+    if (scale[i] === 0) hasEmpty = true;
   }
-  const scaled = new Float64Array(n * n);
   for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) scaled[i * n + j] = matrix[i * n + j] * scale[i] * scale[j];
+    for (let j = 0; j < n; j++) {
+      const value = matrix[i * n + j] * scale[i] * scale[j];
+      scaled[i * n + j] = value;
+      factor[i * n + j] = value;
+    }
   }
-  const dropped: DroppedDirection[] = [];
-  const hasEmpty = scale.some((s) => s === 0);
-  const factor = scaled.slice();
+  let dropped = NO_DIRECTIONS;
   if (!hasEmpty && choleskyInPlace(factor, n, SINGULAR_RELATIVE_EIGENVALUE)) {
-    choleskyInverse(factor, n, inverse);
+    choleskyInverse(factor, n, inverse, scratch.lower);
   } else {
+    dropped = [];
     for (let i = 0; i < n; i++) if (scale[i] === 0) scaled[i * n + i] = 0;
-    const { values, vectors } = symmetricEigen(scaled, n);
+    const { values, vectors } = symmetricEigen(scaled.subarray(0, n * n), n);
     const largest = Math.max(values[n - 1], Number.MIN_VALUE);
     inverse.fill(0, 0, n * n);
     for (let j = 0; j < n; j++) {
