@@ -35,6 +35,15 @@ export default tseslint.config(
     },
   },
   {
+    files: ['core/**', 'unit/**'],
+    rules: {
+      // Published constants and reference values are written with every digit their source
+      // prints, so a reader can compare them with the source; the double rounding them is intended.
+      'no-loss-of-precision': 'off',
+      '@typescript-eslint/no-loss-of-precision': 'off',
+    },
+  },
+  {
     files: ['core/**'],
     languageOptions: { globals: {} },
     rules: {

@@ -23,8 +23,8 @@ test('the desktop app opens its window on the app scheme with the bridge exposed
     await window.waitForLoadState('domcontentloaded');
     expect(window.url()).toMatch(/^ledger:\/\/app\//);
     const shell = await window.evaluate(async () => {
-      const bridge = (window as unknown as { meridianLedgerShell?: { info(): Promise<{ kind: string; value?: { shell: string } }> } }).meridianLedgerShell;
-      return bridge ? (await bridge.info()).value?.shell : 'missing';
+      const bridge = (window as unknown as { meridianLedgerShell?: { info(): Promise<{ shell: string }> } }).meridianLedgerShell;
+      return bridge ? (await bridge.info()).shell : 'missing';
     });
     expect(shell).toBe('electron');
     const hasNode = await window.evaluate(() => typeof (window as unknown as { require?: unknown }).require);

@@ -3,14 +3,13 @@
  * main window's own top frame on the app origin, validates the payload, and answers with a
  * `BridgeResult` — it never throws across the boundary.
  */
-import { writeFile } from 'node:fs/promises';
+import { readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { BrowserWindow, app, dialog, ipcMain, type IpcMainInvokeEvent } from 'electron';
 import { BRIDGE_CHANNELS, type BridgeResult, type OpenedFile, type ShellInfo } from '../../core/bridge.ts';
 import { listBackupFiles, readBackupFile, writeBackupFile } from './backups.ts';
 import { isAllowedNavigation, reportWindowOptions } from './security-policy.ts';
 import { parseBackupRequest, parseOpenFileRequest, parsePrintRequest, parseSaveFileRequest, safeFileName } from './validate-payload.ts';
-import { readFile } from 'node:fs/promises';
 
 function failure(error: unknown): BridgeResult<never> {
   return { kind: 'failed', message: error instanceof Error ? error.message : String(error) };
@@ -39,10 +38,12 @@ export function registerBridgeHandlers(getWindow: () => BrowserWindow | null): v
     });
   };
 
-  handle(BRIDGE_CHANNELS.info, async (): Promise<BridgeResult<ShellInfo>> => ({
-    kind: 'ok',
-    value: { shell: 'electron', appVersion: app.getVersion(), automaticBackups: true },
-  }));
+  // `info` answers ShellInfo itself (not a BridgeResult), as ShellBridge.info declares; an
+  // untrusted sender gets a rejected promise instead.
+  ipcMain.handle(BRIDGE_CHANNELS.info, (event): ShellInfo => {
+    if (!trusted(event)) throw new Error('refused: the request did not come from the Meridian Ledger window');
+    return { shell: 'electron', appVersion: app.getVersion(), automaticBackups: true };
+  });
 
   handle(BRIDGE_CHANNELS.openFiles, async (payload): Promise<BridgeResult<readonly OpenedFile[]>> => {
     const request = parseOpenFileRequest(payload);
