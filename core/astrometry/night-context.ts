@@ -31,13 +31,14 @@ export interface NightContextOptions {
  * Per-night quantities computed once (the SOFA "quick" pattern): Earth's state at the centre with
  * its acceleration and jerk (Sun exact, Moon from a low-precision ephemeris), and quartic fits,
  * through five instants (centre, ±half-width, ±half of it), of the NPB matrix, of R3(λ)·polar
- * motion and of GAST. Full IAU 2000A nutation is evaluated once at the centre; its change across the night comes
- * from IAU 2000B at the three instants (the terms 2000B omits are < 1 mas and change by < 1 µas in
- * a day). Layout of `coefficients`: see the NC_* offsets. Accuracy against the per-instant model
- * over ±0.5 day: asserted < 0.2 mas ('fast'; Earth's velocity differs by up to 0.2 m/s from
- * astronomy-engine's own, whose series derivative is not its physical acceleration) and < 0.02 mas
- * ('exact') in
- * unit/astrometry/night-context.test.ts. Without an EOP table UT1 follows UTC and jumps at a leap
+ * motion and of GAST. In 'fast' mode full IAU 2000A nutation is evaluated once at the centre and
+ * its change across the night taken from IAU 2000B at the five instants (the small terms 2000B
+ * omits then drift by up to ~0.1 mas within the night). Layout of `coefficients`: the NC_* offsets.
+ * Accuracy against the per-instant model over ±0.5 day, asserted in
+ * unit/astrometry/night-context.test.ts: < 0.2 mas in 'fast' mode (also because Earth's velocity
+ * from acceleration and jerk differs by up to 0.2 m/s from astronomy-engine's own, whose series
+ * derivative is not exactly its physical acceleration), < 0.02 mas in 'exact' mode. Without an
+ * EOP table UT1 follows UTC and jumps at a leap
  * second; a context spanning the step smooths it (the per-instant model does not).
  */
 export interface NightContext {

@@ -1,5 +1,6 @@
 import type { Command } from '../command.ts';
 import { bundleCommand } from './bundle.ts';
+import { predictCommand } from './predict.ts';
 
 /** Every subcommand, in the order `--help` lists them. Later commands register here. */
-export const COMMANDS: readonly Command[] = [bundleCommand];
+export const COMMANDS: readonly Command[] = [bundleCommand, predictCommand];

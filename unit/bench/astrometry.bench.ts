@@ -1,0 +1,106 @@
+// Reduction of 1,000,000 transits (100 stars × 10,000 nights, each transit at its own instant near
+// the meridian) to observed places with parallax and aberration factors, with the per-night
+// context, and the same work per transit without it (on a sample, extrapolated). Prints medians;
+// asserts nothing about time. Run: `npm run bench` or `npx tsx unit/bench/astrometry.bench.ts`.
+// The observatory, stars and weather are invented.
+import { earthState } from '../../core/astrometry/earth-state.ts';
+import { iauEarthOrientation } from '../../core/astrometry/iau-earth-orientation.ts';
+import { frameFromContext } from '../../core/astrometry/instant-frame.ts';
+import type { TwoPartJulianDate } from '../../core/astrometry/instant.ts';
+import { createNightContext, NC_ANGLE } from '../../core/astrometry/night-context.ts';
+import { placeContext } from '../../core/astrometry/place-context.ts';
+import { prepareStars } from '../../core/astrometry/prepared-stars.ts';
+import { reduceNight } from '../../core/astrometry/reduce-night.ts';
+import { reduceStar, RESULT_STRIDE } from '../../core/astrometry/reduction-kernel.ts';
+import type { CatalogueStar } from '../../core/astrometry/star.ts';
+import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
+import { TimeScale } from '../../core/time/timescale.ts';
+import { DEG } from '../../core/units.ts';
+
+const STARS = 100;
+const NIGHTS = 10_000;
+const SITE = { latitudeRad: 46.2 * DEG, longitudeRad: 7.4 * DEG, heightM: 820 };
+const WEATHER = { pressureHpa: 925, temperatureC: 8, relativeHumidity: 0.6, wavelengthUm: 0.6 };
+const RATE = 2 * Math.PI * 1.00273781191135448;
+
+/** A small deterministic generator (mulberry32) so every run reduces the same invented stars. */
+function random(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+function inventedStars(): CatalogueStar[] {
+  const next = random(7);
+  return Array.from({ length: STARS }, () => ({
+    raRad: next() * 2 * Math.PI, decRad: Math.asin(0.2 + 0.75 * next()),
+    pmRaCosDecMasYr: (next() - 0.5) * 400, pmDecMasYr: (next() - 0.5) * 400,
+    parallaxMas: next() * 150, radialVelocityKmS: (next() - 0.5) * 80, epochJulianYear: 2016,
+  }));
+}
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[sorted.length >> 1];
+}
+
+export async function run(): Promise<void> {
+  const scale = new TimeScale(BUNDLED_LEAP_SECONDS);
+  const instantFromTt = (tt: TwoPartJulianDate) => scale.fromTt(tt);
+  const catalogue = inventedStars();
+  const stars = prepareStars(catalogue);
+  const starIndex = Int32Array.from({ length: STARS }, (_, k) => k);
+  const days = new Float64Array(STARS);
+  const out = new Float64Array(STARS * RESULT_STRIDE);
+  const setupUs: number[] = [];
+  const perTransitNs: number[] = [];
+  let checksum = 0;
+  const start = performance.now();
+  for (let night = 0; night < NIGHTS; night++) {
+    const centreTt = { jd1: 2_451_545 + 2000 + night, jd2: 0.5 };
+    const t0 = performance.now();
+    const context = createNightContext({ centreTt, site: SITE, weather: WEATHER, instantFromTt });
+    const t1 = performance.now();
+    // Each star's own instant: when it crosses the meridian this night (to ~1 s).
+    const angle = context.coefficients[NC_ANGLE] + SITE.longitudeRad;
+    for (let k = 0; k < STARS; k++) {
+      const ahead = Math.atan2(Math.sin(catalogue[k].raRad - angle), Math.cos(catalogue[k].raRad - angle));
+      days[k] = context.centreDaysSinceJ2000 + ahead / RATE;
+    }
+    const t2 = performance.now();
+    reduceNight(context, stars, starIndex, days, out);
+    const t3 = performance.now();
+    setupUs.push((t1 - t0) * 1000);
+    perTransitNs.push(((t3 - t2) * 1e6) / STARS);
+    checksum += out[0];
+  }
+  const totalS = (performance.now() - start) / 1000;
+  // The same work without the context: full Earth state, orientation and place context per transit.
+  const sample = 3000;
+  const frame = new Float64Array(29);
+  const withoutStart = performance.now();
+  for (let k = 0; k < sample; k++) {
+    const tt = { jd1: 2_451_545 + 2000 + (k % 365), jd2: 0.3 + (k % 7) * 0.05 };
+    const instant = instantFromTt(tt);
+    const context = placeContext(tt.jd1 - 2_451_545 + tt.jd2, earthState(tt), iauEarthOrientation(instant), SITE, WEATHER);
+    reduceStar(frameFromContext(context, frame), stars, k % STARS, out, 0);
+    checksum += out[0];
+  }
+  const withoutUs = ((performance.now() - withoutStart) * 1000) / sample;
+  const setup = median(setupUs), perTransit = median(perTransitNs);
+  const withPerTransitUs = setup / STARS + perTransit / 1000;
+  console.log('astrometry: 1,000,000 transits (100 stars × 10,000 nights) to observed places with parallax and aberration factors');
+  console.log(`  total wall time                    ${totalS.toFixed(3)} s   (target < 1 s)`);
+  console.log(`  per-night context, median          ${setup.toFixed(1)} µs   (target < 50 µs)`);
+  console.log(`  per transit in reduceNight, median ${perTransit.toFixed(0)} ns   (target < 200 ns)`);
+  console.log(`  without the night context          ${withoutUs.toFixed(1)} µs per transit (mean of ${sample})`);
+  console.log(`  ratio without / with context       ${(withoutUs / withPerTransitUs).toFixed(0)} ×`);
+  if (!Number.isFinite(checksum)) throw new Error('astrometry bench produced a non-finite result');
+}
+
+if (process.argv[1]?.endsWith('astrometry.bench.ts')) await run();
