@@ -145,8 +145,10 @@ function parseRow(row: TableRow, layout: TransitLogLayout, options: TransitLogOp
   };
 }
 
-function firstTimeS(times: TransitTimes): number {
-  return times.kind === 'utc' ? utcCountS(times.wires[0].utc) : times.wires[0].clockS;
+/** First wire time on one count of seconds; clock seconds count from 0 h of the row's night date. */
+function firstTimeS(row: TransitLogRow): number {
+  const times = row.times;
+  return times.kind === 'utc' ? utcCountS(times.wires[0].utc) : times.wires[0].clockS + (row.nightDateMjd ?? 0) * 86_400;
 }
 
 /**
@@ -177,7 +179,7 @@ export function parseTransitLog(bytes: Uint8Array, options: TransitLogOptions): 
     const parsed = parseRow(tableRow, layout, options, problems);
     if (parsed) {
       const key = `${parsed.starId}\u0000${parsed.culmination}\u0000${parsed.instrumentId ?? ''}`;
-      const earlier = (seen.get(key) ?? []).find((r) => Math.abs(firstTimeS(r.times) - firstTimeS(parsed.times)) < 43_200);
+      const earlier = (seen.get(key) ?? []).find((r) => Math.abs(firstTimeS(r) - firstTimeS(parsed)) < 43_200);
       if (earlier) problems.push({ column: 'starId', reason: `duplicate of row ${earlier.row} (same star, culmination and instrument within half a day)` });
       else {
         rows.push(parsed);
