@@ -5,7 +5,7 @@ import type { GlobalSolution } from './solve-globals.ts';
 
 /**
  * Locals, their per-block covariances, post-fit residuals and leverages (all a-priori scale).
- * Without `withCovariance`, localCovariance and leverage stay zero.
+ * Without `withCovariance`, localCovariance stays zero and leverage holds only its block-local part.
  */
 export interface BackSubstitution {
   /** Local corrections, flat by PreparedProblem.localOffset (fixed locals read 0 here). */
@@ -56,7 +56,7 @@ export function backSubstitute(
     const covariance = out.localCovariance.subarray(block < prep.blockCount ? covarianceOffset[block] : 0);
     if (l > 0) blockEstimate(ws, solution, local);
     if (!withCovariance) {
-      rowResiduals(prep, block, ws, solution, local, out);
+      rowResiduals(prep, block, weight, ws, solution, local, out);
       continue;
     }
     if (l > 0) blockCovariance(ws, solution, n, prep.localConstraints.length, covariance, cross);
@@ -79,22 +79,36 @@ function blockEstimate(ws: BlockWorkspace, s: GlobalSolution, local: Float64Arra
   }
 }
 
-/** Residuals only (no covariance): the cheap back-substitution of intermediate robust passes. */
-function rowResiduals(prep: PreparedProblem, block: number, ws: BlockWorkspace, s: GlobalSolution, local: Float64Array, out: BackSubstitution): void {
+/**
+ * Residuals and the block-local part of the leverage, w·a_lᵀA⁻¹a_l (a lower bound on the full
+ * leverage; the globals add about their count over the rows touching them): the cheap
+ * back-substitution of intermediate robust passes.
+ */
+function rowResiduals(
+  prep: PreparedProblem, block: number, weight: Float64Array, ws: BlockWorkspace, s: GlobalSolution, local: Float64Array, out: BackSubstitution,
+): void {
   const rows = prep.rows;
+  const l = ws.localCount;
   const base = block < prep.blockCount ? prep.localOffset[block] : 0;
   for (let i = prep.groupStart[block]; i < prep.groupStart[block + 1]; i++) {
     const k = prep.order[i];
     let v = prep.effectiveResidual[k];
+    let variance = 0;
     for (let p = rows.globalStart[k]; p < rows.globalStart[k + 1]; p++) {
       const g = rows.globalIndex[p];
       if (!prep.globalFixed[g]) v -= rows.globalPartial[p] * s.estimate[g];
     }
-    for (let p = rows.localStart[k]; p < rows.localStart[k + 1]; p++) {
+    const l0 = rows.localStart[k];
+    const l1 = rows.localStart[k + 1];
+    for (let p = l0; p < l1; p++) {
       const li = rows.localIndex[p];
-      if (!prep.localFixed[base + li]) v -= rows.localPartial[p] * local[li];
+      if (prep.localFixed[base + li]) continue;
+      const a = rows.localPartial[p];
+      v -= a * local[li];
+      for (let q = l0; q < l1; q++) variance += a * rows.localPartial[q] * ws.inverseLocal[li * l + rows.localIndex[q]];
     }
     out.residual[k] = v;
+    out.leverage[k] = weight[k] * variance;
   }
 }
 

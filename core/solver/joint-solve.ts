@@ -35,6 +35,20 @@ function maxLocalsAndConstraints(prep: PreparedProblem): { maxLocals: number; ma
 }
 
 /**
+ * Spreads the globals' share of the leverage evenly over the fitted rows: the leverages sum to
+ * the rank, and the block-local parts already account for the locals, so the rest is about
+ * (free globals − constraints)/rows per row. An approximation for intermediate robust passes only.
+ */
+function addGlobalLeverageShare(prep: PreparedProblem, leverage: Float64Array): void {
+  let freeGlobals = 0;
+  for (let g = 0; g < prep.globalCount; g++) if (!prep.globalFixed[g]) freeGlobals++;
+  let fitted = 0;
+  for (let k = 0; k < prep.rows.count; k++) if (prep.rows.weight[k] > 0) fitted++;
+  const share = Math.max(0, freeGlobals - prep.globalConstraints.length - prep.localConstraints.length) / Math.max(fitted, 1);
+  for (let k = 0; k < prep.rows.count; k++) if (prep.rows.weight[k] > 0) leverage[k] = Math.min(1, leverage[k] + share);
+}
+
+/**
  * Joint weighted least-squares solve of observation rows with block-local and global parameters
  * (DESIGN.md §4): per pass, every block's normal equations are formed and its locals eliminated
  * by Schur complement into the global system, which is solved densely (Cholesky; eigen-based
@@ -79,22 +93,21 @@ export function jointSolve(problem: SolverProblem, options: SolveOptions = {}): 
   let pass: Pass | null = null;
   let converged = !robust;
   let scale = 0;
-  let leverage: Float64Array = new Float64Array(rowCount);
   for (; iteration <= iterationLimit; iteration++) {
     const reduced = reduceBlocks(prep, weight, ws, true, (done, total) => report('reduce', done / total));
     report('solve', 0);
     const globals = solveGlobals(prep, reduced);
     report('solve', 1);
-    // Leverages need the per-block covariances (l·t² per block); intermediate robust passes reuse
-    // those of the first pass for the scale's studentisation, and the final pass gets exact ones.
-    const exact = iteration === 1;
+    // Exact leverages need the per-block covariances (l·t² per block); intermediate robust passes
+    // studentise with the block-local part only, and the final pass is redone with exact ones.
+    const exact = !robust;
     const back = backSubstitute(prep, weight, ws, globals, exact, (done, total) => report('back-substitute', done / total));
-    if (exact) leverage = back.leverage;
     pass = { reduced, globals, back, exact };
     if (!robust) break;
-    scale = robustScale(back.residual, baseWeight, leverage);
+    if (!exact) addGlobalLeverageShare(prep, back.leverage);
+    scale = robustScale(back.residual, baseWeight, back.leverage);
     const previous = factor.slice();
-    const change = huberFactors(back.residual, baseWeight, leverage, scale, robust.tuning, robust.outlierThreshold, factor, standardized, flag);
+    const change = huberFactors(back.residual, baseWeight, back.leverage, scale, robust.tuning, robust.outlierThreshold, factor, standardized, flag);
     if (change <= robust.weightTolerance || iteration === iterationLimit) {
       converged = change <= robust.weightTolerance;
       factor.set(previous); // the factors of the pass just solved are the ones reported
@@ -107,6 +120,14 @@ export function jointSolve(problem: SolverProblem, options: SolveOptions = {}): 
     report('back-substitute', 0);
     const back = backSubstitute(prep, weight, ws, pass.globals, true, (done, total) => report('back-substitute', done / total));
     pass = { ...pass, back, exact: true };
+    if (robust) {
+      // Scale, standardised residuals and flags of the final pass with exact leverages; the
+      // weights it was solved with stay as they were.
+      scale = robustScale(back.residual, baseWeight, back.leverage);
+      const used = factor.slice();
+      huberFactors(back.residual, baseWeight, back.leverage, scale, robust.tuning, robust.outlierThreshold, factor, standardized, flag);
+      factor.set(used);
+    }
   }
   if (!robust) {
     for (let k = 0; k < rowCount; k++) flag[k] = baseWeight[k] === 0 ? ObservationFlag.rejected : ObservationFlag.fit;
@@ -124,5 +145,6 @@ export function jointSolve(problem: SolverProblem, options: SolveOptions = {}): 
     problem, prep, weight, factor, standardized, flag, scale, degeneracy,
     globals: pass.globals, back: pass.back, reduced: pass.reduced,
     iterations: Math.min(iteration, iterationLimit), converged, covarianceScale: options.covarianceScale ?? 'a-posteriori',
+    huberTuning: robust ? robust.tuning : null,
   });
 }

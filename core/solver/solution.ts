@@ -10,7 +10,7 @@ export interface JointSolution {
   readonly globalEstimate: Float64Array;
   /** 1σ formal errors: √diag of globalCovariance (0 for fixed parameters). */
   readonly globalError: Float64Array;
-  /** n×n row-major covariance, scaled by unitWeightError² unless covarianceScale was 'a-priori'. */
+  /** n×n row-major covariance: the inverse constrained normal matrix times covarianceFactor. */
   readonly globalCovariance: Float64Array;
   /** n×n correlation matrix; rows of fixed parameters are 0 off the diagonal and 1 on it. */
   readonly globalCorrelation: Float64Array;
@@ -45,6 +45,11 @@ export interface JointSolution {
   /** Leverage-corrected MAD scale of the last pass (unit-weight units); 0 for a non-robust solve. */
   readonly robustScale: number;
   readonly fittedRowCount: number;
+  /**
+   * The factor applied to the inverse normal matrix: 1 ('a-priori'), unitWeightError² (plain
+   * a-posteriori), or Huber's asymptotic variance factor for robust solves (finish-solution.ts).
+   */
+  readonly covarianceFactor: number;
   /** Independent parameters actually estimated (free parameters − constraints − singular directions). */
   readonly rank: number;
   readonly iterations: number;
