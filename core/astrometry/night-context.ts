@@ -1,3 +1,4 @@
+import { equinoxComplementaryTerms } from '../earth/equation-of-equinoxes-06.ts';
 import { nutation00b, nutation06a, type Nutation } from '../earth/nutation-series.ts';
 import { applyTranspose, multiply, rotationZ } from '../math/mat3.ts';
 import type { Vec3 } from '../math/vec3.ts';
@@ -77,15 +78,16 @@ export function createNightContext(options: NightContextOptions): NightContext {
   const centre = options.centreTt;
   const days = centre.jd1 - 2_451_545 + centre.jd2;
   const offsets = [-h, -h / 2, 0, h / 2, h];
-  const samples = offsets.map((offset) => options.instantFromTt({ jd1: centre.jd1, jd2: centre.jd2 + offset }));
+  const samples = instantsAt(options.instantFromTt, centre, offsets);
   const exact = options.mode === 'exact';
   if (exact) fillEarthFromSamples(c, [samples[0].tt, samples[2].tt, samples[4].tt], h);
   else fillEarth(c, centre, days);
   const fullNutation = nutation06a(centre);
   const shortNutation = exact ? [] : samples.map((instant) => nutation00b(instant.tt));
+  const complementary = equinoxComplementaryTerms(centre);
   const orientations = samples.map((instant, k) => exact
     ? iauEarthOrientation(instant, k === 2 ? fullNutation : nutation06a(instant.tt))
-    : iauEarthOrientation(instant, nutationAt(fullNutation, shortNutation[k], shortNutation[2])));
+    : iauEarthOrientation(instant, nutationAt(fullNutation, shortNutation[k], shortNutation[2]), complementary));
   const npb = orientations.map((o) => o.npb);
   const local = orientations.map((o) => multiply(rotationZ(options.site.longitudeRad), o.polarMotion));
   for (let e = 0; e < 9; e++) {
@@ -105,6 +107,26 @@ export function createNightContext(options: NightContextOptions): NightContext {
   c[NC_REFRACTION + 2] = refraction === null ? 0 : 1;
   const warnings = [...(refraction?.warnings ?? []), ...samples.flatMap((s) => (s as { warnings?: readonly string[] }).warnings ?? [])];
   return { centreDaysSinceJ2000: days, halfWidthDays: h, coefficients: c, warnings: [...new Set(warnings)] };
+}
+
+/**
+ * The instants at the five offsets: the time scales are asked at the centre and the ends; the two
+ * quarter points take the mean UT1 − TT and pole of their neighbours (EOP tables are interpolated
+ * linearly within a day, so this is exact away from a table node or leap second).
+ */
+function instantsAt(
+  instantFromTt: (tt: TwoPartJulianDate) => AstrometricInstant,
+  centre: TwoPartJulianDate,
+  offsets: readonly number[],
+): AstrometricInstant[] {
+  const at = (offset: number) => instantFromTt({ jd1: centre.jd1, jd2: centre.jd2 + offset });
+  const first = at(offsets[0]), middle = at(offsets[2]), last = at(offsets[4]);
+  const between = (p: AstrometricInstant, q: AstrometricInstant, offset: number): AstrometricInstant => {
+    const tt = { jd1: centre.jd1, jd2: centre.jd2 + offset };
+    const ut1MinusTt = (p.ut1.jd1 - p.tt.jd1 + (p.ut1.jd2 - p.tt.jd2) + (q.ut1.jd1 - q.tt.jd1 + (q.ut1.jd2 - q.tt.jd2))) / 2;
+    return { tt, ut1: { jd1: tt.jd1, jd2: tt.jd2 + ut1MinusTt }, xpRad: (p.xpRad + q.xpRad) / 2, ypRad: (p.ypRad + q.ypRad) / 2 };
+  };
+  return [first, between(first, middle, offsets[1]), middle, between(middle, last, offsets[3]), last];
 }
 
 /** Full nutation at the centre plus the 2000B change from the centre to this sample. */

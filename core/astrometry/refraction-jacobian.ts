@@ -5,50 +5,65 @@ export function refractionScratch(): Float64Array {
   return new Float64Array(9);
 }
 
+/** cos Z below which (Z > 89.5°) the kernel applies no refraction, as observedPlace does. */
+const HORIZON_COS = Math.cos((89.5 * Math.PI) / 180);
+
 /**
- * Refracts the hour-angle-frame direction t[0..2] in place (as `refractInLocalFrame`: toward the
- * zenith by A tan Z + B tan³ Z at the observed Z, two Newton steps from the true Z, which leave an
- * error below 1e-15 rad for Z < 80°) and carries the tangent vectors t[3..5], t[6..8] through the
- * exact derivative of that map. Does nothing without refraction. Within 1e-9 rad of the zenith the
- * tangents are scaled by 1/(1 + A), the limit of the map there.
+ * Refracts the hour-angle-frame unit vector t[0..2] in place — turns it toward the zenith by
+ * δ = A tan Z + B tan³ Z at the observed Z = Z₀ − δ (refraction.ts) — and carries the tangent
+ * vectors t[3..5], t[6..8] through the exact derivative of that map. No trigonometric calls:
+ * tan Z = tan(Z₀ − δ) from tan Z₀ and the series of tan δ, two Newton steps on δ starting from
+ * δ = R(Z₀) (residual < 1e-15 rad for Z < 85°), cos δ and sin δ by their series (δ < 0.01 rad, 1e-16).
+ * Does nothing without refraction or beyond Z₀ = 89.5°; within 1e-9 rad of the zenith the tangents
+ * are scaled by 1/(1 + A), the limit of the map there.
  */
 export function applyRefraction(frame: Float64Array, t: Float64Array): void {
   if (frame[F.F_HAS_REFRACTION] === 0) return;
   const a = frame[F.F_REFRACTION_A], b = frame[F.F_REFRACTION_B];
   const cosLat = frame[F.F_COS_LAT], sinLat = frame[F.F_SIN_LAT];
   const x = t[0], y = t[1], z = t[2];
-  const cosTrue = x * cosLat + z * sinLat;
+  const cosZ = x * cosLat + z * sinLat;
+  if (cosZ < HORIZON_COS) return;
   const sx = x * sinLat - z * cosLat;
-  const sinTrue = Math.sqrt(sx * sx + y * y);
-  if (sinTrue < 1e-9) {
+  const sinZ = Math.sqrt(sx * sx + y * y);
+  if (sinZ < 1e-9) {
     const factor = 1 / (1 + a);
     for (let k = 3; k < 9; k++) t[k] *= factor;
     return;
   }
-  const zTrue = Math.atan2(sinTrue, cosTrue);
-  let zObs = zTrue;
-  let tan = 0;
-  for (let step = 0; step < 2; step++) {
-    tan = Math.tan(zObs);
-    const tan2 = tan * tan;
-    zObs -= (zObs + (a + b * tan2) * tan - zTrue) / (1 + (a + 3 * b * tan2) * (1 + tan2));
+  const tanTrue = sinZ / cosZ;
+  let delta = (a + b * tanTrue * tanTrue) * tanTrue;
+  let tanObs = tanTrue, slope = 0;
+  for (let step = 0; step < 3; step++) {
+    const d2 = delta * delta;
+    const tanDelta = delta * (1 + d2 * (1 / 3 + d2 * (2 / 15)));
+    tanObs = (tanTrue - tanDelta) / (1 + tanTrue * tanDelta);
+    const tan2 = tanObs * tanObs;
+    slope = (a + 3 * b * tan2) * (1 + tan2);
+    if (step === 2) break;
+    delta -= (delta - (a + b * tan2) * tanObs) / (1 + slope);
   }
-  tan = Math.tan(zObs);
-  const gain = 1 / (1 + (a + 3 * b * tan * tan) * (1 + tan * tan));
-  const sinObs = Math.sin(zObs), cosObs = Math.cos(zObs);
-  const ratio = sinObs / sinTrue;
-  const hx = x - cosLat * cosTrue, hy = y, hz = z - sinLat * cosTrue;
+  const d2 = delta * delta;
+  const cosDelta = 1 - d2 * (0.5 - d2 / 24);
+  const sinDelta = delta * (1 - d2 * (1 / 6 - d2 / 120));
+  // w: unit vector toward the zenith, perpendicular to the direction.
+  const inverseSin = 1 / sinZ;
+  const wx = (cosLat - cosZ * x) * inverseSin, wy = -cosZ * y * inverseSin, wz = (sinLat - cosZ * z) * inverseSin;
+  const gain = slope / (1 + slope);
   for (let k = 3; k < 9; k += 3) {
     const dx = t[k], dy = t[k + 1], dz = t[k + 2];
-    const dCosTrue = dx * cosLat + dz * sinLat;
-    const dTrue = -dCosTrue / sinTrue;
-    const dObs = gain * dTrue;
-    const dRatio = (cosObs * dObs * sinTrue - sinObs * cosTrue * dTrue) / (sinTrue * sinTrue);
-    t[k] = -cosLat * sinObs * dObs + (dx - cosLat * dCosTrue) * ratio + hx * dRatio;
-    t[k + 1] = dy * ratio + hy * dRatio;
-    t[k + 2] = -sinLat * sinObs * dObs + (dz - sinLat * dCosTrue) * ratio + hz * dRatio;
+    const dCos = dx * cosLat + dz * sinLat;
+    const dTrue = -dCos * inverseSin;
+    const dDelta = gain * dTrue;
+    const dSinRatio = cosZ * dTrue * inverseSin;
+    const dwx = (-dCos * x - cosZ * dx) * inverseSin - wx * dSinRatio;
+    const dwy = (-dCos * y - cosZ * dy) * inverseSin - wy * dSinRatio;
+    const dwz = (-dCos * z - cosZ * dz) * inverseSin - wz * dSinRatio;
+    t[k] = cosDelta * dx - sinDelta * dDelta * x + sinDelta * dwx + cosDelta * dDelta * wx;
+    t[k + 1] = cosDelta * dy - sinDelta * dDelta * y + sinDelta * dwy + cosDelta * dDelta * wy;
+    t[k + 2] = cosDelta * dz - sinDelta * dDelta * z + sinDelta * dwz + cosDelta * dDelta * wz;
   }
-  t[0] = cosLat * cosObs + hx * ratio;
-  t[1] = hy * ratio;
-  t[2] = sinLat * cosObs + hz * ratio;
+  t[0] = x * cosDelta + wx * sinDelta;
+  t[1] = y * cosDelta + wy * sinDelta;
+  t[2] = z * cosDelta + wz * sinDelta;
 }
