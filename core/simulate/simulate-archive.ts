@@ -1,3 +1,4 @@
+import { approximateUtcMjd, dateMjd, quantizedClockMjd } from '../archive-folder/folder-text.ts';
 import type { InstrumentEventRecord, InstrumentRecord, NightRecord, SiteRecord, StarRecord, TransitRecord } from '../archive/records.ts';
 import { starMotion } from '../astrometry/space-motion.ts';
 import { TaskCancelledError, type TaskControl, UNCONTROLLED } from '../task/task-control.ts';
@@ -95,7 +96,7 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
       quality: night.quality, note: `${night.darkHours.toFixed(1)} h of darkness`,
       visibility: 'visible', createdUtc, updatedUtc: createdUtc,
     });
-    const meanCorrectionDays = simulated.clockComparisons.reduce((s, c) => s + c.clockMinusUtcS, 0) / simulated.clockComparisons.length / 86_400;
+    const dayMjd = dateMjd(night.localDate);
     const observedTonight = new Set(simulated.transits.map((t) => t.starIndex));
     for (const t of simulated.transits) {
       const record: MutableTransit = { id: '', starId: programme[t.starIndex].catalogue.id, clockMjd: t.clockMjd, wireClockMjd: [...t.wireClockMjd], zenithReadings: [...t.zenithReadings] };
@@ -106,13 +107,13 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
       const blunder = blundered ? plantBlunder(record, instrument, swapTo < 0 ? null : programme[swapTo].catalogue.id, blunderRandom) : null;
       if (blunder?.kind === 'star-swapped') observedTonight.add(swapTo);
       record.id = transitId(nightId, record.starId, t.culmination);
-      if (blunder !== null) {
-        blunders.push({ ...blunder, transitId: record.id });
-        record.clockMjd = meanWireClockMjd(record.wireClockMjd, instrument.wireIntervalsEquatorialS, t.observedDeclinationRad, t.culmination);
-      }
+      if (blunder !== null) blunders.push({ ...blunder, transitId: record.id });
+      // Times as the archive folder writes them (10 µs), the mean wire reduced from those times.
+      record.wireClockMjd = record.wireClockMjd.map((m) => (Number.isFinite(m) ? quantizedClockMjd(m, dayMjd) : Number.NaN));
+      record.clockMjd = quantizedClockMjd(meanWireClockMjd(record.wireClockMjd, instrument.wireIntervalsEquatorialS, t.observedDeclinationRad, t.culmination), dayMjd);
       transits.push({
         id: record.id, nightId, starId: record.starId, instrumentId: instrument.id, culmination: t.culmination,
-        clockMjd: record.clockMjd, wireClockMjd: record.wireClockMjd, utcMjd: record.clockMjd - meanCorrectionDays,
+        clockMjd: record.clockMjd, wireClockMjd: record.wireClockMjd, utcMjd: approximateUtcMjd(record.clockMjd, simulated.clockComparisons),
         zenithReadings: record.zenithReadings, weather: t.weather, weight: 1, userRejected: false, flaggedOutlier: false, note: '',
         visibility: 'visible', createdUtc, updatedUtc: createdUtc,
       });

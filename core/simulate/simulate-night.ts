@@ -1,3 +1,4 @@
+import { quantizedUtcMjd } from '../archive-folder/folder-text.ts';
 import type { ClockComparison, InstrumentRecord, LevelReading, WeatherReading } from '../archive/records.ts';
 import type { Culmination } from '../instrument/culmination.ts';
 import type { StarMotion } from '../astrometry/space-motion.ts';
@@ -60,12 +61,12 @@ export function simulateNight(setting: NightSetting, planned: PlannedNight, stat
   const comparisonCount = 3 + random.integer(3);
   const clockComparisons: ClockComparison[] = [];
   for (let k = 0; k < comparisonCount; k++) {
-    const utcMjd = first + ((last - first) * k) / (comparisonCount - 1);
+    const utcMjd = quantizedUtcMjd(first + ((last - first) * k) / (comparisonCount - 1));
     const reading = clockMinusUtcS(utcMjd) + random.normal(0, options.clockComparisonNoiseS);
     clockComparisons.push({ utcMjd, clockMinusUtcS: Math.round(reading * 1e4) / 1e4, signal: 'GNSS PPS' });
   }
   const levelReadings = [first, last].map((utcMjd) => ({
-    utcMjd, levelArcsec: Math.round((state.levelArcsec + random.normal(0, options.levelNoiseArcsec)) * 100) / 100,
+    utcMjd: quantizedUtcMjd(utcMjd), levelArcsec: Math.round((state.levelArcsec + random.normal(0, options.levelNoiseArcsec)) * 100) / 100,
   }));
   const noise: ObservationNoise = {
     wireNoiseS: options.wireNoiseS, zenithNoiseArcsec: options.zenithNoiseArcsec,

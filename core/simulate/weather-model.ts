@@ -43,8 +43,9 @@ export function weatherAt(dayOfYear: number, localHour: number, day: DayWeather)
   const diurnal = Math.cos((2 * Math.PI * (localHour - 15)) / 24);
   const temperatureC = ANNUAL_MEAN_C + ANNUAL_AMPLITUDE_C * annual + DIURNAL_AMPLITUDE_C * diurnal + day.temperatureAnomalyC;
   const humidity = 78 - 8 * annual - 8 * diurnal + day.humidityAnomalyPercent;
+  // `|| 0` turns a rounded −0 into 0, as a station would write it.
   return {
-    temperatureC: Math.round(temperatureC * 10) / 10,
+    temperatureC: Math.round(temperatureC * 10) / 10 || 0,
     pressureHpa: Math.round((STATION_PRESSURE_HPA + day.pressureAnomalyHpa) * 10) / 10,
     relativeHumidityPercent: Math.round(Math.min(98, Math.max(25, humidity))),
   };
