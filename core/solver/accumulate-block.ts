@@ -103,15 +103,18 @@ function finishBlock(prep: PreparedProblem, block: number, l: number, localBase:
   const Ainv = ws.inverseLocal;
   const G = ws.gain;
   const Nlt = ws.normalLocalTouched;
+  G.fill(0, 0, l * t);
   for (let i = 0; i < l; i++) {
     let sum = 0;
-    for (let j = 0; j < l; j++) sum += Ainv[i * l + j] * bl[j];
-    ws.solvedLocal[i] = sum;
-    for (let c = 0; c < t; c++) {
-      let gain = 0;
-      for (let j = 0; j < l; j++) gain += Ainv[i * l + j] * Nlt[j * t + c];
-      G[i * t + c] = gain;
+    const rowG = i * t;
+    for (let j = 0; j < l; j++) {
+      const inverse = Ainv[i * l + j];
+      sum += inverse * bl[j];
+      if (inverse === 0) continue;
+      const rowN = j * t;
+      for (let c = 0; c < t; c++) G[rowG + c] += inverse * Nlt[rowN + c];
     }
+    ws.solvedLocal[i] = sum;
   }
   ws.constraintCount = 0;
   if (block >= prep.blockCount) return;

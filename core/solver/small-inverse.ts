@@ -42,35 +42,33 @@ export function symmetricGeneralisedInverse(matrix: Float64Array, n: number, inv
     scale[i] = diagonal > 0 ? 1 / Math.sqrt(diagonal) : 0;
     if (scale[i] === 0) hasEmpty = true;
   }
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const value = matrix[i * n + j] * scale[i] * scale[j];
-      scaled[i * n + j] = value;
-      factor[i * n + j] = value;
-    }
-  }
-  let dropped = NO_DIRECTIONS;
+  // choleskyInPlace tests each pivot against its own diagonal element, which is the same test as
+  // on the unit-diagonal matrix, so the regular path needs no scaled copy.
+  for (let i = 0; i < n * n; i++) factor[i] = matrix[i];
   if (!hasEmpty && choleskyInPlace(factor, n, SINGULAR_RELATIVE_EIGENVALUE)) {
     choleskyInverse(factor, n, inverse, scratch.lower);
-  } else {
-    dropped = [];
-    for (let i = 0; i < n; i++) if (scale[i] === 0) scaled[i * n + i] = 0;
-    const { values, vectors } = symmetricEigen(scaled.subarray(0, n * n), n);
-    const largest = Math.max(values[n - 1], Number.MIN_VALUE);
-    inverse.fill(0, 0, n * n);
-    for (let j = 0; j < n; j++) {
-      const relative = values[j] / largest;
-      const vector = vectors.subarray(j * n, j * n + n);
-      if (relative <= SINGULAR_RELATIVE_EIGENVALUE) {
-        dropped.push({ relativeEigenvalue: Math.max(relative, 0), vector: vector.slice() });
-        continue;
-      }
-      const reciprocal = 1 / values[j];
-      for (let r = 0; r < n; r++) {
-        const vr = vector[r] * reciprocal;
-        if (vr === 0) continue;
-        for (let c = 0; c < n; c++) inverse[r * n + c] += vr * vector[c];
-      }
+    return NO_DIRECTIONS;
+  }
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) scaled[i * n + j] = matrix[i * n + j] * scale[i] * scale[j];
+  }
+  const dropped: DroppedDirection[] = [];
+  for (let i = 0; i < n; i++) if (scale[i] === 0) scaled[i * n + i] = 0;
+  const { values, vectors } = symmetricEigen(scaled.subarray(0, n * n), n);
+  const largest = Math.max(values[n - 1], Number.MIN_VALUE);
+  inverse.fill(0, 0, n * n);
+  for (let j = 0; j < n; j++) {
+    const relative = values[j] / largest;
+    const vector = vectors.subarray(j * n, j * n + n);
+    if (relative <= SINGULAR_RELATIVE_EIGENVALUE) {
+      dropped.push({ relativeEigenvalue: Math.max(relative, 0), vector: vector.slice() });
+      continue;
+    }
+    const reciprocal = 1 / values[j];
+    for (let r = 0; r < n; r++) {
+      const vr = vector[r] * reciprocal;
+      if (vr === 0) continue;
+      for (let c = 0; c < n; c++) inverse[r * n + c] += vr * vector[c];
     }
   }
   for (let i = 0; i < n; i++) {
