@@ -16,7 +16,8 @@ export interface ProgrammeEntry {
 /**
  * Every transit of `stars` (upper and/or lower culminations, as `culminations` asks) between
  * `fromUtc` and `untilUtc` (UTC two-part JDs), ordered by time, each with the Sun check. A window
- * longer than a sidereal day yields repeated transits of the same star.
+ * longer than a sidereal day yields repeated transits of the same star. Culminations below the
+ * horizon (geometric zenith distance ≥ 90°) are left out unless `includeBelowHorizon`.
  */
 export function nightProgramme(
   stars: readonly StarMotion[],
@@ -27,6 +28,7 @@ export function nightProgramme(
   culminations: readonly Culmination[],
   instantFromUtc: InstantFromUtc,
   orientationModel: EarthOrientationModel,
+  includeBelowHorizon = false,
 ): ProgrammeEntry[] {
   const until = untilUtc.jd1 + untilUtc.jd2;
   if (!(until > fromUtc.jd1 + fromUtc.jd2)) {
@@ -40,12 +42,13 @@ export function nightProgramme(
         const prediction = predictTransit(motion, site, weather, after, culmination, instantFromUtc, orientationModel);
         if (prediction.utc.jd1 + prediction.utc.jd2 > until) break;
         const place = prediction.place;
+        after = { jd1: prediction.utc.jd1, jd2: prediction.utc.jd2 + 0.01 };
+        if (!includeBelowHorizon && place.topocentricZenithRad >= Math.PI / 2) continue;
         entries.push({
           starIndex,
           prediction,
           sun: sunAtTransit(prediction.context, place.topocentricHourAngleRad, place.topocentricDeclinationRad),
         });
-        after = { jd1: prediction.utc.jd1, jd2: prediction.utc.jd2 + 0.01 };
       }
     }
   });

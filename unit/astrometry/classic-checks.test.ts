@@ -1,15 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { positionRonVondrak } from 'astronomia/apparent';
+import { aberration, nutation, positionRonVondrak } from 'astronomia/apparent';
 import { JDEToJulianYear } from 'astronomia/base';
 import { Equatorial } from 'astronomia/coord';
 import { Angle, HourAngle } from 'astronomia/sexagesimal';
 import { AstroTime, Body, Equator, Horizon, Observer } from 'astronomy-engine';
+import { aberrate } from '../../core/astrometry/aberration.ts';
 import { SPEED_OF_LIGHT_AU_PER_DAY } from '../../core/astrometry/constants.ts';
+import { biasPrecessionMatrix06 } from '../../core/earth/precession-06.ts';
+import { apply } from '../../core/math/mat3.ts';
+import { toSpherical, type Vec3 } from '../../core/math/vec3.ts';
 import { earthState } from '../../core/astrometry/earth-state.ts';
 import { iauEarthOrientation } from '../../core/astrometry/iau-earth-orientation.ts';
 import { observedPlace } from '../../core/astrometry/observed-place.ts';
 import { placeContext } from '../../core/astrometry/place-context.ts';
-import { starMotion } from '../../core/astrometry/space-motion.ts';
+import { starMotion, starPositionAt } from '../../core/astrometry/space-motion.ts';
 import { sunAtTransit } from '../../core/astrometry/sun-at-transit.ts';
 import { ARCSEC, DEG, HOUR_ANGLE } from '../../core/units.ts';
 
@@ -46,6 +50,38 @@ describe('apparent place of θ Persei (Meeus example 23.a)', () => {
     const dec = (49 + 21 / 60 + 7.45 / 3600) * DEG;
     expect(Math.abs(place.apparentRaRad - ra) * Math.cos(dec) / ARCSEC).toBeLessThan(0.1);
     expect(Math.abs(place.apparentDecRad - dec) / ARCSEC).toBeLessThan(0.1);
+  });
+});
+
+describe('components of the θ Persei place (Meeus example 23.a)', () => {
+  // Astrometric direction at the date (space motion only), then the two corrections one at a time.
+  const context = contextAt(JDE);
+  const days = JDE - 2451545;
+  const direction = starPositionAt(starMotion(thetaPersei), days);
+  const ofDate = (v: Vec3) => toSpherical(apply(context.npb, v));
+  const meanOfDate = (v: Vec3) => toSpherical(apply(biasPrecessionMatrix06({ jd1: JDE, jd2: 0 }), v));
+  const difference = (a: ReturnType<typeof toSpherical>, b: ReturnType<typeof toSpherical>) => [(a.alphaRad - b.alphaRad) / ARCSEC, (a.deltaRad - b.deltaRad) / ARCSEC];
+
+  it('annual aberration Δα = +30.045″, Δδ = +6.697″ (book values, from memory; astronomia aberration() too) within 0.03″', () => {
+    const [dRa, dDec] = difference(ofDate(aberrate(direction, context.earthBeta)), ofDate(direction));
+    console.log(`θ Persei aberration: Δα ${dRa.toFixed(3)}″, Δδ ${dDec.toFixed(3)}″`);
+    expect(Math.abs(dRa - 30.045)).toBeLessThan(0.03);
+    expect(Math.abs(dDec - 6.697)).toBeLessThan(0.03);
+    const mean = meanOfDate(direction);
+    const [theirRa, theirDec] = aberration(mean.alphaRad, mean.deltaRad, JDE);
+    expect(Math.abs(dRa - theirRa / ARCSEC)).toBeLessThan(0.03);
+    expect(Math.abs(dDec - theirDec / ARCSEC)).toBeLessThan(0.03);
+  });
+
+  it('nutation Δα = +15.843″, Δδ = +6.218″ (book values, IAU 1980, from memory; astronomia nutation() too) within 0.05″', () => {
+    const [dRa, dDec] = difference(ofDate(direction), meanOfDate(direction));
+    console.log(`θ Persei nutation: Δα ${dRa.toFixed(3)}″, Δδ ${dDec.toFixed(3)}″`);
+    expect(Math.abs(dRa - 15.843)).toBeLessThan(0.05);
+    expect(Math.abs(dDec - 6.218)).toBeLessThan(0.05);
+    const mean = meanOfDate(direction);
+    const [theirRa, theirDec] = nutation(mean.alphaRad, mean.deltaRad, JDE);
+    expect(Math.abs(dRa - theirRa / ARCSEC)).toBeLessThan(0.05);
+    expect(Math.abs(dDec - theirDec / ARCSEC)).toBeLessThan(0.05);
   });
 });
 
