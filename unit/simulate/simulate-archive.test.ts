@@ -14,6 +14,7 @@ import { R_HOUR_ANGLE_PER_ABERRATION } from '../../core/astrometry/reduction-ker
 import { mayerCorrectionRad, mayerFactors } from '../../core/instrument/mayer.ts';
 import { trueZenithDistanceRad, zenithDistanceFromReading } from '../../core/instrument/zenith-distance.ts';
 import { simulateArchive, type SimulatedArchive } from '../../core/simulate/simulate-archive.ts';
+import { TaskCancelledError } from '../../core/task/task-control.ts';
 import { skyWeather } from '../../core/simulate/simulate-night.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { mjdToJulianDate } from '../../core/time/julian-date.ts';
@@ -139,6 +140,16 @@ describe('simulateArchive', () => {
       return long.transits.filter((t) => nights.includes(t.nightId)).length / nights.length;
     };
     expect(perNight(true)).toBeGreaterThan(perNight(false));
+  });
+
+  it('reports progress in nights and stops with TaskCancelledError when cancelled', async () => {
+    const seen: [number, number][] = [];
+    const cancellation = { isCancelled: false };
+    const control = { cancellation, reportProgress: (done: number, total: number) => { seen.push([done, total]); if (done >= 20) cancellation.isCancelled = true; }, yieldToHost: () => Promise.resolve() };
+    await expect(simulateArchive({ seed: 1, years: 2, starCount: 6 }, control)).rejects.toBeInstanceOf(TaskCancelledError);
+    expect(seen[0][0]).toBe(0);
+    expect(seen.at(-1)![0]).toBe(20);
+    expect(seen[0][1]).toBeGreaterThan(100);
   });
 
   it('refuses a bad request with the field named', async () => {

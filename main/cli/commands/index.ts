@@ -1,6 +1,7 @@
 import type { Command } from '../command.ts';
 import { bundleCommand } from './bundle.ts';
 import { predictCommand } from './predict.ts';
+import { simulateCommand } from './simulate.ts';
 
 /** Every subcommand, in the order `--help` lists them. Later commands register here. */
-export const COMMANDS: readonly Command[] = [bundleCommand, predictCommand];
+export const COMMANDS: readonly Command[] = [bundleCommand, predictCommand, simulateCommand];
