@@ -20,20 +20,7 @@ export function accumulateBlock(
   const l = block < prep.blockCount ? prep.localOffset[block + 1] - prep.localOffset[block] : 0;
   const localBase = block < prep.blockCount ? prep.localOffset[block] : 0;
   ws.localCount = l;
-  const stampValue = ++ws.currentStamp;
-  let t = 0;
-  for (let i = first; i < end; i++) {
-    const k = order[i];
-    for (let p = rows.globalStart[k]; p < rows.globalStart[k + 1]; p++) {
-      const g = rows.globalIndex[p];
-      if (globalFixed[g] || ws.stamp[g] === stampValue) continue;
-      ws.stamp[g] = stampValue;
-      ws.position[g] = t;
-      ws.touched[t++] = g;
-    }
-  }
-  ws.touchedCount = t;
-  ws.reserve(t);
+  const t = gatherTouched(prep, first, end, ws);
   const A = ws.normalLocal;
   const Nlt = ws.normalLocalTouched;
   const Ntt = ws.normalTouched;
@@ -83,6 +70,26 @@ export function accumulateBlock(
     }
   }
   finishBlock(prep, block, l, localBase, ws);
+}
+
+/** Lists the free globals the block's rows touch, in order of first appearance; returns their count. */
+function gatherTouched(prep: PreparedProblem, first: number, end: number, ws: BlockWorkspace): number {
+  const rows = prep.rows;
+  const stampValue = ++ws.currentStamp;
+  let t = 0;
+  for (let i = first; i < end; i++) {
+    const k = prep.order[i];
+    for (let p = rows.globalStart[k]; p < rows.globalStart[k + 1]; p++) {
+      const g = rows.globalIndex[p];
+      if (prep.globalFixed[g] || ws.stamp[g] === stampValue) continue;
+      ws.stamp[g] = stampValue;
+      ws.position[g] = t;
+      ws.touched[t++] = g;
+    }
+  }
+  ws.touchedCount = t;
+  ws.reserve(t);
+  return t;
 }
 
 function finishBlock(prep: PreparedProblem, block: number, l: number, localBase: number, ws: BlockWorkspace): void {

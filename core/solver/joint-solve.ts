@@ -48,6 +48,86 @@ function addGlobalLeverageShare(prep: PreparedProblem, leverage: Float64Array): 
   for (let k = 0; k < prep.rows.count; k++) if (prep.rows.weight[k] > 0) leverage[k] = Math.min(1, leverage[k] + share);
 }
 
+interface ResolvedRobust {
+  readonly tuning: number;
+  readonly outlierThreshold: number;
+  readonly maxIterations: number;
+  readonly weightTolerance: number;
+}
+
+function resolveRobust(options: SolveOptions): ResolvedRobust | null {
+  if (options.robust === false) return null;
+  const robust = {
+    tuning: options.robust?.tuning ?? DEFAULT_HUBER_TUNING,
+    outlierThreshold: options.robust?.outlierThreshold ?? 3,
+    maxIterations: options.robust?.maxIterations ?? 30,
+    weightTolerance: options.robust?.weightTolerance ?? 1e-4,
+  };
+  if (!(robust.tuning > 0 && robust.maxIterations >= 1)) {
+    throw new RangeError(`jointSolve: robust.tuning ${robust.tuning} and robust.maxIterations ${robust.maxIterations} must be positive`);
+  }
+  return robust;
+}
+
+/** Per-row robust state shared by the passes. */
+interface RowState {
+  readonly baseWeight: Float64Array;
+  weight: Float64Array;
+  readonly factor: Float64Array;
+  readonly standardized: Float64Array;
+  readonly flag: Uint8Array;
+  scale: number;
+}
+
+type Reporter = (phase: SolvePhase, fraction: number, iteration: number) => void;
+
+/** Reduce, solve and back-substitute with the current weights. */
+function runPass(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, exact: boolean, iteration: number, report: Reporter): Pass {
+  const reduced = reduceBlocks(prep, rows.weight, ws, true, (done, total) => report('reduce', done / total, iteration));
+  report('solve', 0, iteration);
+  const globals = solveGlobals(prep, reduced);
+  report('solve', 1, iteration);
+  const back = backSubstitute(prep, rows.weight, ws, globals, exact, (done, total) => report('back-substitute', done / total, iteration));
+  return { reduced, globals, back, exact };
+}
+
+/** New Huber factors from a pass's residuals; returns the largest change. `keep` leaves the factors as they were. */
+function reweigh(rows: RowState, back: BackSubstitution, robust: ResolvedRobust, keep: boolean): number {
+  rows.scale = robustScale(back.residual, rows.baseWeight, back.leverage);
+  const previous = rows.factor.slice();
+  const change = huberFactors(back.residual, rows.baseWeight, back.leverage, rows.scale, robust.tuning, robust.outlierThreshold,
+    rows.factor, rows.standardized, rows.flag);
+  if (keep) rows.factor.set(previous);
+  return change;
+}
+
+/**
+ * Iterates passes until the Huber factors settle (or once when not robust). Exact leverages need
+ * the per-block covariances (l·t² per block), so intermediate robust passes studentise with the
+ * block-local part plus an even share of the globals', and the last pass is then back-substituted
+ * again with exact covariances, its scale and flags recomputed (its weights unchanged).
+ */
+function iterate(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, robust: ResolvedRobust | null, report: Reporter):
+  { pass: Pass; iterations: number; converged: boolean } {
+  const limit = robust ? robust.maxIterations : 1;
+  for (let iteration = 1; ; iteration++) {
+    let pass = runPass(prep, rows, ws, !robust, iteration, report);
+    if (!robust) return { pass, iterations: 1, converged: true };
+    addGlobalLeverageShare(prep, pass.back.leverage);
+    const change = reweigh(rows, pass.back, robust, false);
+    const converged = change <= robust.weightTolerance;
+    if (converged || iteration === limit) {
+      rows.factor.set(Float64Array.from(rows.weight, (w, k) => (rows.baseWeight[k] > 0 ? w / rows.baseWeight[k] : 1)));
+      report('back-substitute', 0, iteration);
+      const back = backSubstitute(prep, rows.weight, ws, pass.globals, true, (done, total) => report('back-substitute', done / total, iteration));
+      pass = { ...pass, back, exact: true };
+      reweigh(rows, back, robust, true);
+      return { pass, iterations: iteration, converged };
+    }
+    rows.weight = Float64Array.from(rows.baseWeight, (w, k) => w * rows.factor[k]);
+  }
+}
+
 /**
  * Joint weighted least-squares solve of observation rows with block-local and global parameters
  * (DESIGN.md §4): per pass, every block's normal equations are formed and its locals eliminated
@@ -64,87 +144,38 @@ function addGlobalLeverageShare(prep: PreparedProblem, leverage: Float64Array): 
  * Throws SolveCancelled when `options.cancel.cancelled` becomes true (checked every 256 blocks).
  */
 export function jointSolve(problem: SolverProblem, options: SolveOptions = {}): JointSolution {
-  const robust = options.robust === false ? null : {
-    tuning: options.robust?.tuning ?? DEFAULT_HUBER_TUNING,
-    outlierThreshold: options.robust?.outlierThreshold ?? 3,
-    maxIterations: options.robust?.maxIterations ?? 30,
-    weightTolerance: options.robust?.weightTolerance ?? 1e-4,
-  };
-  if (robust && !(robust.tuning > 0 && robust.maxIterations >= 1)) {
-    throw new RangeError(`jointSolve: robust.tuning ${robust.tuning} and robust.maxIterations ${robust.maxIterations} must be positive`);
-  }
+  const robust = resolveRobust(options);
   const iterationLimit = robust ? robust.maxIterations : 1;
-  let iteration = 1;
-  const report = (phase: SolvePhase, fraction: number): void => {
+  const report: Reporter = (phase, fraction, iteration) => {
     if (options.cancel?.cancelled) throw new SolveCancelled(`joint solve cancelled during ${phase} of pass ${iteration}`);
     options.onProgress?.({ phase, iteration, iterationLimit, fraction });
   };
-  report('accumulate', 0);
+  report('accumulate', 0, 1);
   const prep = prepareProblem(problem);
-  const rowCount = prep.rows.count;
-  const baseWeight = prep.rows.weight;
-  const factor = new Float64Array(rowCount).fill(1);
-  const standardized = new Float64Array(rowCount);
-  const flag = new Uint8Array(rowCount);
-  let weight = baseWeight.slice();
+  const n = prep.rows.count;
+  const rows: RowState = {
+    baseWeight: prep.rows.weight, weight: prep.rows.weight.slice(), factor: new Float64Array(n).fill(1),
+    standardized: new Float64Array(n), flag: new Uint8Array(n), scale: 0,
+  };
   const { maxLocals, maxConstraints } = maxLocalsAndConstraints(prep);
   const ws = new BlockWorkspace(prep.globalCount, maxLocals, maxConstraints);
-  report('accumulate', 1);
-  let pass: Pass | null = null;
-  let converged = !robust;
-  let scale = 0;
-  for (; iteration <= iterationLimit; iteration++) {
-    const reduced = reduceBlocks(prep, weight, ws, true, (done, total) => report('reduce', done / total));
-    report('solve', 0);
-    const globals = solveGlobals(prep, reduced);
-    report('solve', 1);
-    // Exact leverages need the per-block covariances (l·t² per block); intermediate robust passes
-    // studentise with the block-local part only, and the final pass is redone with exact ones.
-    const exact = !robust;
-    const back = backSubstitute(prep, weight, ws, globals, exact, (done, total) => report('back-substitute', done / total));
-    pass = { reduced, globals, back, exact };
-    if (!robust) break;
-    if (!exact) addGlobalLeverageShare(prep, back.leverage);
-    scale = robustScale(back.residual, baseWeight, back.leverage);
-    const previous = factor.slice();
-    const change = huberFactors(back.residual, baseWeight, back.leverage, scale, robust.tuning, robust.outlierThreshold, factor, standardized, flag);
-    if (change <= robust.weightTolerance || iteration === iterationLimit) {
-      converged = change <= robust.weightTolerance;
-      factor.set(previous); // the factors of the pass just solved are the ones reported
-      break;
-    }
-    weight = Float64Array.from(baseWeight, (w, k) => w * factor[k]);
-  }
-  if (!pass) throw new Error('jointSolve: no pass ran (internal error)');
-  if (!pass.exact) {
-    report('back-substitute', 0);
-    const back = backSubstitute(prep, weight, ws, pass.globals, true, (done, total) => report('back-substitute', done / total));
-    pass = { ...pass, back, exact: true };
-    if (robust) {
-      // Scale, standardised residuals and flags of the final pass with exact leverages; the
-      // weights it was solved with stay as they were.
-      scale = robustScale(back.residual, baseWeight, back.leverage);
-      const used = factor.slice();
-      huberFactors(back.residual, baseWeight, back.leverage, scale, robust.tuning, robust.outlierThreshold, factor, standardized, flag);
-      factor.set(used);
-    }
-  }
+  report('accumulate', 1, 1);
+  const { pass, iterations, converged } = iterate(prep, rows, ws, robust, report);
   if (!robust) {
-    for (let k = 0; k < rowCount; k++) flag[k] = baseWeight[k] === 0 ? ObservationFlag.rejected : ObservationFlag.fit;
+    for (let k = 0; k < n; k++) rows.flag[k] = rows.baseWeight[k] === 0 ? ObservationFlag.rejected : ObservationFlag.fit;
   }
   let degeneracy = null;
   if (options.degeneracyReport !== false) {
-    report('degeneracy', 0);
+    report('degeneracy', 0, iterations);
     degeneracy = degeneracyReport(
       prep, pass.reduced.normal, pass.globals.localConstraintRows, problem.globalNames, problem.priors ?? [],
       options.weakDirectionCount ?? 5, pass.reduced.singularBlocks, problem.localName ?? ((b, i) => `block ${b} local ${i}`),
     );
-    report('degeneracy', 1);
+    report('degeneracy', 1, iterations);
   }
   return finishSolution({
-    problem, prep, weight, factor, standardized, flag, scale, degeneracy,
-    globals: pass.globals, back: pass.back, reduced: pass.reduced,
-    iterations: Math.min(iteration, iterationLimit), converged, covarianceScale: options.covarianceScale ?? 'a-posteriori',
-    huberTuning: robust ? robust.tuning : null,
+    problem, prep, weight: rows.weight, factor: rows.factor, standardized: rows.standardized, flag: rows.flag, scale: rows.scale,
+    degeneracy, globals: pass.globals, back: pass.back, reduced: pass.reduced, iterations, converged,
+    covarianceScale: options.covarianceScale ?? 'a-posteriori', huberTuning: robust ? robust.tuning : null,
   });
 }

@@ -25,25 +25,7 @@ export function prepareProblem(problem: SolverProblem): PreparedProblem {
   }
   const rows = problem.rows;
   checkRows(rows, globalCount, blockLocalCount);
-  const localTotal = localOffset[blockCount];
-  const fixed = new Uint8Array(globalCount + localTotal);
-  const fixedValue = new Float64Array(globalCount + localTotal);
-  for (const [i, entry] of (problem.fixed ?? []).entries()) {
-    const at = flatIndex(entry.parameter, globalCount, localOffset, `fixed[${i}]`);
-    if (!Number.isFinite(entry.value)) throw new RangeError(`fixed[${i}]: value is ${entry.value}; pass a finite correction`);
-    fixed[at] = 1;
-    fixedValue[at] = entry.value;
-  }
-  const priorWeight = new Float64Array(globalCount + localTotal);
-  const priorWeightedValue = new Float64Array(globalCount + localTotal);
-  for (const [i, prior] of (problem.priors ?? []).entries()) {
-    const at = flatIndex(prior.parameter, globalCount, localOffset, `priors[${i}]`);
-    if (!(prior.sigma > 0 && Number.isFinite(prior.sigma))) throw new RangeError(`priors[${i}]: sigma is ${prior.sigma}; pass a positive finite σ (or fix the parameter instead)`);
-    if (!Number.isFinite(prior.value)) throw new RangeError(`priors[${i}]: value is ${prior.value}`);
-    if (fixed[at]) throw new RangeError(`priors[${i}]: the parameter is also fixed; keep either the prior or the fix`);
-    priorWeight[at] += 1 / (prior.sigma * prior.sigma);
-    priorWeightedValue[at] += prior.value / (prior.sigma * prior.sigma);
-  }
+  const { fixed, fixedValue, priorWeight, priorWeightedValue } = fixesAndPriors(problem, globalCount, localOffset);
   const effectiveResidual = rows.residual.slice();
   for (let k = 0; k < rows.count; k++) {
     for (let t = rows.globalStart[k]; t < rows.globalStart[k + 1]; t++) {
@@ -79,6 +61,31 @@ export function prepareProblem(problem: SolverProblem): PreparedProblem {
     blockConstraintLocal: Int32Array.from(localTerms, (t) => t.local),
     blockConstraintCoefficient: Float64Array.from(localTerms, (t) => t.coefficient),
   };
+}
+
+/** Flat arrays (globals, then locals by localOffset) of the fixes and the summed prior weights. */
+function fixesAndPriors(problem: SolverProblem, globalCount: number, localOffset: Int32Array):
+  { fixed: Uint8Array; fixedValue: Float64Array; priorWeight: Float64Array; priorWeightedValue: Float64Array } {
+  const size = globalCount + localOffset[localOffset.length - 1];
+  const fixed = new Uint8Array(size);
+  const fixedValue = new Float64Array(size);
+  for (const [i, entry] of (problem.fixed ?? []).entries()) {
+    const at = flatIndex(entry.parameter, globalCount, localOffset, `fixed[${i}]`);
+    if (!Number.isFinite(entry.value)) throw new RangeError(`fixed[${i}]: value is ${entry.value}; pass a finite correction`);
+    fixed[at] = 1;
+    fixedValue[at] = entry.value;
+  }
+  const priorWeight = new Float64Array(size);
+  const priorWeightedValue = new Float64Array(size);
+  for (const [i, prior] of (problem.priors ?? []).entries()) {
+    const at = flatIndex(prior.parameter, globalCount, localOffset, `priors[${i}]`);
+    if (!(prior.sigma > 0 && Number.isFinite(prior.sigma))) throw new RangeError(`priors[${i}]: sigma is ${prior.sigma}; pass a positive finite σ (or fix the parameter instead)`);
+    if (!Number.isFinite(prior.value)) throw new RangeError(`priors[${i}]: value is ${prior.value}`);
+    if (fixed[at]) throw new RangeError(`priors[${i}]: the parameter is also fixed; keep either the prior or the fix`);
+    priorWeight[at] += 1 / (prior.sigma * prior.sigma);
+    priorWeightedValue[at] += prior.value / (prior.sigma * prior.sigma);
+  }
+  return { fixed, fixedValue, priorWeight, priorWeightedValue };
 }
 
 function splitConstraints(

@@ -70,40 +70,11 @@ function transpose(a: Float64Array, r: number, c: number): Float64Array {
 export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem): GlobalSolution {
   const n = reduced.n;
   const m = reduced.constraintCount;
-  const S = reduced.normal.slice();
-  const h = reduced.rhs.slice();
-  for (let p = 0; p < n; p++) {
-    if (prep.globalFixed[p]) {
-      S[p * n + p] = 1;
-      h[p] = 0;
-    } else {
-      S[p * n + p] += prep.globalPriorWeight[p];
-      h[p] += prep.globalPriorWeightedValue[p];
-    }
-  }
+  const { S, h } = withPriorsAndFixes(prep, reduced);
   const B = reduced.coupling;
-  const Einv = invertSmall(reduced.constraintNormal, m, () =>
-    `constraints ${prep.localConstraints.map((c) => `"${c.label}"`).join(', ')} are linearly dependent in their local terms (or touch only locals without data); drop one of them`);
-  const F = multiply(transpose(B, m, n), Einv, n, m, m);
-  if (m > 0) {
-    const FB = multiply(F, B, n, m, n);
-    for (let i = 0; i < n * n; i++) S[i] += FB[i];
-    const Fd = multiply(F, reduced.constraintRhs, n, m, 1);
-    for (let i = 0; i < n; i++) h[i] += Fd[i];
-  }
+  const { F, Einv } = eliminateMultipliers(prep, reduced, S, h);
   const k = prep.globalConstraints.length;
-  const C = new Float64Array(k * n);
-  const d = new Float64Array(k);
-  prep.globalConstraints.forEach((constraint, i) => {
-    let norm2 = 0;
-    constraint.globalIndex.forEach((g, j) => {
-      C[i * n + g] += constraint.globalCoefficient[j];
-    });
-    for (let g = 0; g < n; g++) norm2 += (C[i * n + g] * C[i * n + g]) / Math.max(S[g * n + g], Number.MIN_VALUE);
-    const factor = 1 / Math.sqrt(norm2);
-    for (let g = 0; g < n; g++) C[i * n + g] *= factor;
-    d[i] = constraint.value * factor;
-  });
+  const { C, d } = unitConstraintRows(prep, S, n);
   const M = S.slice();
   for (let i = 0; i < k; i++) {
     for (let a = 0; a < n; a++) {
@@ -114,21 +85,7 @@ export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem): Glo
   }
   const Minv = new Float64Array(n * n);
   const minimumNormDirections = symmetricGeneralisedInverse(M, n, Minv);
-  let estimate = multiply(Minv, h, n, n, 1);
-  let Q = Minv;
-  if (k > 0) {
-    const P = multiply(Minv, transpose(C, k, n), n, n, k);
-    const Tinv = invertSmall(multiply(C, P, k, n, k), k, () =>
-      `constraints ${prep.globalConstraints.map((c) => `"${c.label}"`).join(', ')} on global parameters are linearly dependent; drop one of them`);
-    // d − C·M⁻¹·h, with C·M⁻¹ = Pᵀ (M⁻¹ symmetric)
-    const misfit = d.slice();
-    for (let j = 0; j < n; j++) for (let i = 0; i < k; i++) misfit[i] -= P[j * k + i] * h[j];
-    const PT = multiply(P, Tinv, n, k, k);
-    const correction = multiply(PT, misfit, n, k, 1);
-    estimate = estimate.map((x, i) => x + correction[i]);
-    const PTPt = multiply(PT, transpose(P, n, k), n, k, n);
-    Q = Minv.map((x, i) => x - PTPt[i]);
-  }
+  const { estimate, Q } = k > 0 ? constrainedSolution(prep, Minv, C, d, h, n, k) : { estimate: multiply(Minv, h, n, n, 1), Q: Minv };
   for (let p = 0; p < n; p++) {
     if (!prep.globalFixed[p]) continue;
     estimate[p] = 0;
@@ -145,4 +102,73 @@ export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem): Glo
     estimate, covariance: Q, multiplier, constraintGain: F, covarianceGain, gainCovariance,
     constraintNormalInverse: Einv, minimumNormDirections, localConstraintRows: B, globalConstraintRows: C,
   };
+}
+
+/** S = R + global priors, h = b' + prior terms; fixed globals pinned to a zero correction. */
+function withPriorsAndFixes(prep: PreparedProblem, reduced: ReducedSystem): { S: Float64Array; h: Float64Array } {
+  const n = reduced.n;
+  const S = reduced.normal.slice();
+  const h = reduced.rhs.slice();
+  for (let p = 0; p < n; p++) {
+    if (prep.globalFixed[p]) {
+      S[p * n + p] = 1;
+      h[p] = 0;
+    } else {
+      S[p * n + p] += prep.globalPriorWeight[p];
+      h[p] += prep.globalPriorWeightedValue[p];
+    }
+  }
+  return { S, h };
+}
+
+/** S += BᵀE⁻¹B, h += BᵀE⁻¹d' in place; returns F = BᵀE⁻¹ and E⁻¹. */
+function eliminateMultipliers(prep: PreparedProblem, reduced: ReducedSystem, S: Float64Array, h: Float64Array): { F: Float64Array; Einv: Float64Array } {
+  const n = reduced.n;
+  const m = reduced.constraintCount;
+  const B = reduced.coupling;
+  const Einv = invertSmall(reduced.constraintNormal, m, () =>
+    `constraints ${prep.localConstraints.map((c) => `"${c.label}"`).join(', ')} are linearly dependent in their local terms (or touch only locals without data); drop one of them`);
+  const F = multiply(transpose(B, m, n), Einv, n, m, m);
+  if (m > 0) {
+    const FB = multiply(F, B, n, m, n);
+    for (let i = 0; i < n * n; i++) S[i] += FB[i];
+    const Fd = multiply(F, reduced.constraintRhs, n, m, 1);
+    for (let i = 0; i < n; i++) h[i] += Fd[i];
+  }
+  return { F, Einv };
+}
+
+/** Global-only constraint rows C (k×n) and values d, each scaled to unit norm in the metric diag(S)⁻¹ (unit-diagonal coordinates). */
+function unitConstraintRows(prep: PreparedProblem, S: Float64Array, n: number): { C: Float64Array; d: Float64Array } {
+  const k = prep.globalConstraints.length;
+  const C = new Float64Array(k * n);
+  const d = new Float64Array(k);
+  prep.globalConstraints.forEach((constraint, i) => {
+    let norm2 = 0;
+    constraint.globalIndex.forEach((g, j) => {
+      C[i * n + g] += constraint.globalCoefficient[j];
+    });
+    for (let g = 0; g < n; g++) norm2 += (C[i * n + g] * C[i * n + g]) / Math.max(S[g * n + g], Number.MIN_VALUE);
+    const factor = 1 / Math.sqrt(norm2);
+    for (let g = 0; g < n; g++) C[i * n + g] *= factor;
+    d[i] = constraint.value * factor;
+  });
+  return { C, d };
+}
+
+/** g = M⁻¹h + M⁻¹Cᵀ·T⁻¹(d − CM⁻¹h), Q = M⁻¹ − M⁻¹CᵀT⁻¹CM⁻¹ with T = CM⁻¹Cᵀ. */
+function constrainedSolution(
+  prep: PreparedProblem, Minv: Float64Array, C: Float64Array, d: Float64Array, h: Float64Array, n: number, k: number,
+): { estimate: Float64Array; Q: Float64Array } {
+  const P = multiply(Minv, transpose(C, k, n), n, n, k);
+  const Tinv = invertSmall(multiply(C, P, k, n, k), k, () =>
+    `constraints ${prep.globalConstraints.map((c) => `"${c.label}"`).join(', ')} on global parameters are linearly dependent; drop one of them`);
+  // d − C·M⁻¹·h, with C·M⁻¹ = Pᵀ (M⁻¹ symmetric)
+  const misfit = d.slice();
+  for (let j = 0; j < n; j++) for (let i = 0; i < k; i++) misfit[i] -= P[j * k + i] * h[j];
+  const PT = multiply(P, Tinv, n, k, k);
+  const correction = multiply(PT, misfit, n, k, 1);
+  const estimate = multiply(Minv, h, n, n, 1).map((x, i) => x + correction[i]);
+  const PTPt = multiply(PT, transpose(P, n, k), n, k, n);
+  return { estimate, Q: Minv.map((x, i) => x - PTPt[i]) };
 }
