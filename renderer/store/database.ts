@@ -12,12 +12,13 @@ import type {
   TransitRecord,
 } from '../../core/archive/records.ts';
 import { SCHEMA_V1 } from './schemaV1.ts';
+import { SCHEMA_V2, type SettingRecord } from './schemaV2.ts';
 
 /** Name of the IndexedDB database that holds the user's archive in this browser profile. */
 export const ARCHIVE_DATABASE_NAME = 'meridian-ledger-archive';
 
 /** The newest schema version this build knows; opening a newer database fails with a VersionError. */
-export const ARCHIVE_SCHEMA_VERSION = 1;
+export const ARCHIVE_SCHEMA_VERSION = 2;
 
 /**
  * The archive database (DESIGN.md §3), one typed table per record kind.
@@ -38,10 +39,12 @@ export class ArchiveDatabase extends Dexie {
   leapSeconds!: EntityTable<LeapSecondRecord, 'mjd'>;
   reductions!: EntityTable<ReductionRecord, 'id'>;
   imports!: EntityTable<ImportRecord, 'id'>;
+  settings!: EntityTable<SettingRecord, 'key'>;
 
   /** `name` is ARCHIVE_DATABASE_NAME in the app; tests pass a unique name each. */
   constructor(name: string = ARCHIVE_DATABASE_NAME) {
     super(name);
     this.version(1).stores(SCHEMA_V1);
+    this.version(2).stores(SCHEMA_V2);
   }
 }

@@ -1,0 +1,139 @@
+import type { InstrumentRecord, NightRecord, SiteRecord, TransitRecord } from '../../core/archive/records.ts';
+import type { Rejection } from '../../core/formats/parse-result.ts';
+import { parseTransitLog, type TransitLogRow } from '../../core/formats/transit-log.ts';
+import { mjdToCalendarDay } from '../../core/time/julian-date.ts';
+import type { ArchiveDatabase } from '../store/database.ts';
+import { applyColumnMapping, type ColumnMapping } from './columnMapping.ts';
+import { countsOf, type ImportPlan } from './importReport.ts';
+import { transitRecordFromRow, wireTimesMjd, zenithReadingsFor } from './transitRecordFromRow.ts';
+
+/** Same star, culmination and instrument within this many days is the same transit (FORMATS.md). */
+export const DUPLICATE_WINDOW_DAYS = 0.5;
+
+export interface TransitImportOptions {
+  /** Instrument for rows whose instrumentId cell is empty (or absent); null: such rows are rejected. */
+  readonly defaultInstrumentId: string | null;
+  readonly columnMapping: ColumnMapping;
+}
+
+function isoDate(mjd: number): string {
+  const { year, month, day } = mjdToCalendarDay(mjd);
+  return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+}
+
+/**
+ * Local date on which the night of a UTC instant began: local mean time from the site's east
+ * longitude, with the day changing at local noon (an observing night runs noon to noon; common
+ * practice). Used only when a row gives no nightDate.
+ */
+function nightDateOf(utcMjd: number, site: SiteRecord | undefined): number {
+  const localMjd = utcMjd + (site?.longitudeDeg ?? 0) / 360;
+  return Math.floor(localMjd - 0.5);
+}
+
+interface Lookups {
+  readonly starIdByCatalogueId: ReadonlyMap<string, string>;
+  readonly instruments: ReadonlyMap<string, InstrumentRecord>;
+  readonly sites: ReadonlyMap<string, SiteRecord>;
+}
+
+async function loadLookups(database: ArchiveDatabase): Promise<Lookups> {
+  const visible = <T extends { visibility: string }>(rows: T[]) => rows.filter((r) => r.visibility === 'visible');
+  const [stars, instruments, sites] = await Promise.all([database.stars.toArray(), database.instruments.toArray(), database.sites.toArray()]);
+  return {
+    starIdByCatalogueId: new Map(visible(stars).map((s) => [s.catalogueId, s.id])),
+    instruments: new Map(visible(instruments).map((i) => [i.id, i])),
+    sites: new Map(visible(sites).map((s) => [s.id, s])),
+  };
+}
+
+async function archivedDuplicate(database: ArchiveDatabase, record: TransitRecord): Promise<TransitRecord | undefined> {
+  return database.transits
+    .where('[starId+utcMjd]')
+    .between([record.starId, record.utcMjd - DUPLICATE_WINDOW_DAYS], [record.starId, record.utcMjd + DUPLICATE_WINDOW_DAYS], true, true)
+    .and((t) => t.visibility === 'visible' && t.culmination === record.culmination && t.instrumentId === record.instrumentId)
+    .first();
+}
+
+/**
+ * Validates a transit log (FORMATS.md) against the archive and plans its writes. Needs the star
+ * list and the site description imported first (missingPrerequisites says which is absent, and no
+ * row is then importable). Beyond the parser's checks, a row is rejected when its instrument is
+ * unknown, its wires do not fit the instrument, its zenith unit is not the instrument's, or the
+ * archive already holds the same transit (same star, culmination, instrument within half a
+ * day): such duplicates are reported and skipped, never doubled. Nights are found by instrument
+ * and local date, or created.
+ */
+export async function planTransitImport(
+  database: ArchiveDatabase, bytes: Uint8Array, fileName: string, nowUtc: string, options: TransitImportOptions,
+): Promise<ImportPlan> {
+  const lookups = await loadLookups(database);
+  const missingPrerequisites: string[] = [];
+  if (lookups.starIdByCatalogueId.size === 0) missingPrerequisites.push('The archive holds no star list: import the star list (CSV) first, then this transit log.');
+  if (lookups.instruments.size === 0) missingPrerequisites.push('The archive holds no site and instrument: import the site description (JSON) first, then this transit log.');
+  const parsed = parseTransitLog(applyColumnMapping(bytes, options.columnMapping), { fileName, knownStarIds: new Set(lookups.starIdByCatalogueId.keys()) });
+  const rejected: Rejection[] = [...parsed.rejected];
+  const transits: TransitRecord[] = [];
+  const newNights = new Map<string, NightRecord>();
+  let duplicateCount = 0;
+  if (missingPrerequisites.length > 0) {
+    for (const row of parsed.rows) rejected.push({ row: row.row, line: row.line, column: '', reason: `not imported: ${missingPrerequisites[0]}` });
+  }
+  for (const row of missingPrerequisites.length === 0 ? parsed.rows : []) {
+    const reject = (column: string, reason: string) => rejected.push({ row: row.row, line: row.line, column, reason });
+    const instrumentId = row.instrumentId ?? options.defaultInstrumentId;
+    const instrument = instrumentId === null ? undefined : lookups.instruments.get(instrumentId);
+    if (instrument === undefined) {
+      reject('instrumentId', instrumentId === null ? 'no instrumentId in the row and no instrument chosen for the file; choose one or fill the column' : `unknown instrument '${instrumentId}'; import its site description first or correct the id`);
+      continue;
+    }
+    const planned = await planRow(database, row, instrument, lookups, newNights, nowUtc);
+    if ('reason' in planned) {
+      reject(planned.column, planned.reason);
+      continue;
+    }
+    const duplicate = await archivedDuplicate(database, planned);
+    if (duplicate !== undefined) {
+      duplicateCount++;
+      reject('starId', `already in the archive (transit ${duplicate.id} at UTC MJD ${duplicate.utcMjd.toFixed(5)}: same star, culmination and instrument within half a day); skipped`);
+      continue;
+    }
+    transits.push(planned);
+  }
+  const created = { nights: [...newNights.values()].filter((n) => transits.some((t) => t.nightId === n.id)), transits };
+  const validRows = transits.length;
+  return {
+    report: {
+      fileName, kind: 'transit-log', totalRows: parsed.totalRows, validRows, rejectedRowCount: parsed.totalRows - validRows,
+      rejected: rejected.sort((a, b) => a.row - b.row), duplicateCount, warnings: parsed.warnings, missingPrerequisites,
+      createdCounts: countsOf(created), updatedCounts: {},
+    },
+    writes: { created, updated: {} },
+  };
+}
+
+async function planRow(
+  database: ArchiveDatabase, row: TransitLogRow, instrument: InstrumentRecord, lookups: Lookups, newNights: Map<string, NightRecord>, nowUtc: string,
+): Promise<TransitRecord | { column: string; reason: string }> {
+  const site = lookups.sites.get(instrument.siteId);
+  const firstUtcMjd = row.times.kind === 'utc' ? row.times.wires[0].utc.mjd + row.times.wires[0].utc.secondsOfDay / 86_400 : null;
+  const nightDateMjd = row.nightDateMjd ?? (firstUtcMjd === null ? null : nightDateOf(firstUtcMjd, site));
+  const times = wireTimesMjd(row, nightDateMjd, instrument.wireIntervalsEquatorialS.length);
+  if ('reason' in times) return times;
+  const readings = zenithReadingsFor(row, instrument);
+  if ('reason' in readings) return readings;
+  const localDate = isoDate(nightDateMjd as number);
+  const key = `${instrument.id}\u0000${localDate}`;
+  let night: NightRecord | undefined = newNights.get(key);
+  night ??= await database.nights.where('[instrumentId+localDate]').equals([instrument.id, localDate]).and((n) => n.visibility === 'visible').first();
+  if (night === undefined) {
+    night = {
+      id: crypto.randomUUID(), siteId: instrument.siteId, instrumentId: instrument.id, localDate, observer: row.observer ?? '',
+      weather: null, clockComparisons: [], levelReadings: [], collimationReadings: [], quality: 'fair', note: '',
+      visibility: 'visible', createdUtc: nowUtc, updatedUtc: nowUtc,
+    };
+    newNights.set(key, night);
+  }
+  const starId = lookups.starIdByCatalogueId.get(row.starId) as string; // the parser rejected unknown ids
+  return transitRecordFromRow(row, { id: crypto.randomUUID(), nightId: night.id, starId, instrumentId: instrument.id }, times, readings, nowUtc);
+}
