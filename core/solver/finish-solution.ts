@@ -65,6 +65,9 @@ function priorChiSquare(input: FinishInput, globalEstimate: Float64Array, localE
   return sum;
 }
 
+/** Coefficient (in a unit scaled eigenvector) above which a parameter counts as part of an undetermined direction. */
+const UNDETERMINED_COEFFICIENT = 0.01;
+
 /** χ², degrees of freedom, unit-weight error, fixed values put back, errors and correlations. */
 export function finishSolution(input: FinishInput): JointSolution {
   const { prep, globals, back, weight } = input;
@@ -120,7 +123,21 @@ export function finishSolution(input: FinishInput): JointSolution {
       localError[prep.localOffset[b] + i] = Math.sqrt(Math.max(localCovariance[back.covarianceOffset[b] + i * l + i], 0));
     }
   }
+  // Parameters in a direction solved as minimum norm: their errors hold only with that direction
+  // pinned at zero, so they are marked rather than left looking well determined.
+  const globalUndetermined = new Uint8Array(n);
+  for (const direction of globals.minimumNormDirections) {
+    direction.vector.forEach((x, g) => { if (Math.abs(x) >= UNDETERMINED_COEFFICIENT) globalUndetermined[g] = 1; });
+  }
+  const localUndetermined = new Uint8Array(localEstimate.length);
+  for (const entry of input.reduced.singularBlocks) {
+    if (entry.block >= prep.blockCount) continue;
+    for (const vector of entry.vectors) {
+      vector.forEach((x, i) => { if (Math.abs(x) >= UNDETERMINED_COEFFICIENT) localUndetermined[prep.localOffset[entry.block] + i] = 1; });
+    }
+  }
   return {
+    globalUndetermined, localUndetermined,
     globalNames: input.problem.globalNames, globalEstimate, globalError, globalCovariance, globalCorrelation,
     localOffset: prep.localOffset, localEstimate, localError, localCovariance, localCovarianceOffset: back.covarianceOffset,
     residual: back.residual, finalWeight: weight, robustFactor: input.factor, standardizedResidual: input.standardized,

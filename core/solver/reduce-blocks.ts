@@ -11,7 +11,7 @@ import type { PreparedProblem } from './prepared-problem.ts';
  *   coupling B = C_g − Σ_blocks C_jA⁻¹N_lt         (m×n, m local-term constraints)
  *   constraintNormal E = Σ_blocks C_jA⁻¹C_jᵀ          (m×m)
  *   constraintRhs d' = d − Σ_blocks C_jA⁻¹b_l      (m)
- * so that the reduced KKT system is [R Bᵀ; B −E]·[g; λ] = [b'; d'] (derivation in joint-solve.ts).
+ * so that the reduced KKT system is [R Bᵀ; B −E]·[g; λ] = [b'; d'] (solved in solve-globals.ts).
  */
 export interface ReducedSystem {
   readonly n: number;

@@ -14,6 +14,14 @@ export interface JointSolution {
   readonly globalCovariance: Float64Array;
   /** n×n correlation matrix; rows of fixed parameters are 0 off the diagonal and 1 on it. */
   readonly globalCorrelation: Float64Array;
+  /**
+   * 1 for globals that take part (|coefficient| ≥ 0.01) in a direction no data, prior or
+   * constraint determines: it was solved as minimum norm, and their errors are valid only with
+   * that direction held at zero. All 0 in a well-posed solve.
+   */
+  readonly globalUndetermined: Uint8Array;
+  /** The same per local (flat like localEstimate): locals of singular blocks, set to zero. */
+  readonly localUndetermined: Uint8Array;
   /** Block b's locals at localEstimate[localOffset[b] … localOffset[b+1]). */
   readonly localOffset: Int32Array;
   readonly localEstimate: Float64Array;

@@ -44,6 +44,8 @@ describe('a common shift and drift of every night zero point against every star 
     expect(allFinite(solution.globalEstimate) && allFinite(solution.globalError) && allFinite(solution.localEstimate)).toBe(true);
     expect(allFinite(solution.globalCorrelation) && allFinite(solution.localError) && allFinite(solution.residual)).toBe(true);
     expect(solution.rank).toBe(2 * STARS + 2 * NIGHTS - 2);
+    // Every star term is marked: its error holds only with the null directions pinned at zero.
+    expect(solution.globalUndetermined.every((x) => x === 1)).toBe(true);
   });
 
   it('is fixed by "zero points sum to zero" and "no trend": finite, satisfied, named, truth recovered', () => {
@@ -57,6 +59,7 @@ describe('a common shift and drift of every night zero point against every star 
     }
     expect(solution.warnings).toEqual([]);
     expect(solution.rank).toBe(2 * STARS + 2 * NIGHTS - 2);
+    expect(solution.globalUndetermined.every((x) => x === 0)).toBe(true);
     let sum = 0;
     let trend = 0;
     for (let b = 0; b < NIGHTS; b++) {
@@ -100,6 +103,8 @@ describe('a common shift and drift of every night zero point against every star 
     expect(solution.degeneracy!.singularBlockCount).toBe(1);
     expect(solution.degeneracy!.singularBlocks[0].block).toBe(5);
     expect(solution.localEstimate[solution.localOffset[5] + 1]).toBe(0);
+    expect([...solution.localUndetermined.subarray(solution.localOffset[5], solution.localOffset[6])]).toEqual([1, 1]);
+    expect(solution.localUndetermined.reduce((s, x) => s + x, 0)).toBe(2);
     expect(allFinite(solution.localError)).toBe(true);
   });
 });
