@@ -130,7 +130,8 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
       skyModel: 'core/astrometry observedPlace (IAU 2006/2000A, relativistic aberration with Earth velocity × (κ₀+Δκ)/κ₀, diurnal aberration in the topocentric place, solar deflection, A tan Z + B tan³ Z refraction with the weather written with the transit or else the night); bundled leap seconds, no EOP table (UT1 − UTC = 0, no polar motion); Mayer factors and wire intervals at the observed (refracted) declination; clamp west throughout',
     },
     instruments: [{ id: instrument.id, flexureArcsec: options.flexureArcsec, readingScaleArcsecPerUnit: instrument.readingScaleArcsecPerUnit, readingSense: instrument.readingSense }],
-    stars: programme.map((p) => p.truth), nights: trueNights, blunders,
+    stars: programme.map((p) => p.truth), nights: trueNights,
+    events: events.map(({ id, instrumentId, utcMjd, kind, note }) => ({ id, instrumentId, utcMjd, kind, note })), blunders,
   };
   return { site, instruments: [instrument], events, stars: programme.map((p) => p.catalogue), nights, transits, truth };
 }

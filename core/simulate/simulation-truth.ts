@@ -25,6 +25,10 @@ export interface TrueStar {
   readonly catalogueErrorPmRaMasYr: number;
   readonly catalogueErrorPmDecMasYr: number;
   readonly catalogueErrorParallaxMas: number;
+  /** The stated σ of the catalogue the errors were drawn with: position (mas), proper motion (mas/yr), parallax (mas). */
+  readonly catalogueSigmaPositionMas: number;
+  readonly catalogueSigmaPmMasYr: number;
+  readonly catalogueSigmaParallaxMas: number;
 }
 
 /** One instrument's state on one night (constant through the night). */
@@ -81,5 +85,7 @@ export interface SimulationTruth {
   readonly instruments: readonly TrueInstrument[];
   readonly stars: readonly TrueStar[];
   readonly nights: readonly TrueNightState[];
+  /** Every instrument event as planted (also in site.json): steps of a, b, c and zero point in the note. */
+  readonly events: readonly { readonly id: string; readonly instrumentId: string; readonly utcMjd: number; readonly kind: string; readonly note: string }[];
   readonly blunders: readonly PlantedBlunder[];
 }

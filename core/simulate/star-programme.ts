@@ -55,7 +55,7 @@ function inventDeclination(index: number, latitudeDeg: number, random: SeededRan
   return random.between(latitudeDeg - PROGRAMME_ZENITH_LIMIT_DEG + 2, latitudeDeg - 0.5);
 }
 
-function withCatalogue(truth: Omit<TrueStar, `catalogueError${string}`>, random: SeededRandom, createdUtc: string): ProgrammeStar {
+function withCatalogue(truth: Omit<TrueStar, `catalogueError${string}` | `catalogueSigma${string}`>, random: SeededRandom, createdUtc: string): ProgrammeStar {
   const positionSigmaMas = random.between(2, 25);
   const pmSigmaMasYr = random.between(0.5, 4);
   const parallaxSigmaMas = random.between(0.4, 3);
@@ -66,6 +66,9 @@ function withCatalogue(truth: Omit<TrueStar, `catalogueError${string}`>, random:
     catalogueErrorPmRaMasYr: random.normal(0, pmSigmaMasYr),
     catalogueErrorPmDecMasYr: random.normal(0, pmSigmaMasYr),
     catalogueErrorParallaxMas: random.normal(0, parallaxSigmaMas),
+    catalogueSigmaPositionMas: positionSigmaMas,
+    catalogueSigmaPmMasYr: pmSigmaMasYr,
+    catalogueSigmaParallaxMas: parallaxSigmaMas,
   };
   const cosDec = Math.cos(full.decDeg * DEG);
   let raDeg = full.raDeg + (full.catalogueErrorRaMas * MAS) / cosDec / DEG;

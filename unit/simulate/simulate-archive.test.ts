@@ -12,6 +12,7 @@ import { observedWithPartials } from '../../core/astrometry/observed-partials.ts
 import { placeContext } from '../../core/astrometry/place-context.ts';
 import { R_HOUR_ANGLE_PER_ABERRATION } from '../../core/astrometry/reduction-kernel.ts';
 import { mayerCorrectionRad, mayerFactors } from '../../core/instrument/mayer.ts';
+import { reduceToMeanWire } from '../../core/instrument/wire-reduction.ts';
 import { trueZenithDistanceRad, zenithDistanceFromReading } from '../../core/instrument/zenith-distance.ts';
 import { simulateArchive, type SimulatedArchive } from '../../core/simulate/simulate-archive.ts';
 import { TaskCancelledError } from '../../core/task/task-control.ts';
@@ -87,9 +88,26 @@ describe('simulateArchive', () => {
     expect(zenithRms / (0.3 * ARCSEC)).toBeLessThan(1.25);
   });
 
+  it('writes catalogue values = truth + the catalogue error the truth states, within the stated σ', () => {
+    let pulls = 0;
+    for (const truth of archive.truth.stars) {
+      const listed = archive.stars.find((s) => s.id === truth.id)!;
+      const raMas = (((listed.raDeg - truth.raDeg + 540) % 360) - 180) * 3.6e6 * Math.cos(truth.decDeg * DEG);
+      expect(Math.abs(raMas - truth.catalogueErrorRaMas)).toBeLessThan(0.01);
+      expect(Math.abs((listed.decDeg - truth.decDeg) * 3.6e6 - truth.catalogueErrorDecMas)).toBeLessThan(0.01);
+      expect(listed.pmRaMasYr - truth.pmRaMasYr).toBeCloseTo(truth.catalogueErrorPmRaMasYr, 9);
+      expect(listed.parallaxMas - truth.parallaxMas).toBeCloseTo(truth.catalogueErrorParallaxMas, 9);
+      expect(listed.parallaxErrorMas).toBe(truth.catalogueSigmaParallaxMas);
+      pulls += (truth.catalogueErrorDecMas / truth.catalogueSigmaPositionMas) ** 2;
+    }
+    // χ² of 16 unit-normal pulls: 5–35 holds with probability > 99 % (chi-square table).
+    expect(pulls).toBeGreaterThan(5);
+    expect(pulls).toBeLessThan(35);
+  });
+
   it('lists every planted blunder, each on a transit that exists and that a hand reduction flags', () => {
     const { blunders } = archive.truth;
-    expect(blunders.length).toBeGreaterThan(3);
+    expect(new Set(blunders.map((b) => b.kind))).toEqual(new Set(['wire-miscounted', 'turn-slipped', 'star-swapped', 'clock-second']));
     const ids = new Set(archive.transits.map((t) => t.id));
     for (const blunder of blunders) {
       expect(ids.has(blunder.transitId)).toBe(true);
@@ -97,6 +115,14 @@ describe('simulateArchive', () => {
       if (blunder.kind === 'clock-second') expect(Math.abs(Math.abs(reduceByHand(archive, transit).timeResidualS) - 1)).toBeLessThan(0.15);
       if (blunder.kind === 'turn-slipped') expect(Math.abs(reduceByHand(archive, transit).zenithResidualRad) / ARCSEC).toBeGreaterThan(55);
       if (blunder.kind === 'star-swapped') expect(blunder.trueStarId).not.toBe(transit.starId);
+      if (blunder.kind === 'wire-miscounted') {
+        // A wire written in its neighbour's column leaves a residual of about one wire spacing (10 s sec δ).
+        const star = archive.truth.stars.find((s) => s.id === transit.starId)!;
+        const base = Math.floor(transit.clockMjd);
+        const wires = transit.wireClockMjd.map((m, wireIndex) => ({ wireIndex, clockTimeS: (m - base) * SECONDS_PER_DAY })).filter((w) => Number.isFinite(w.clockTimeS));
+        const reduced = reduceToMeanWire(wires, archive.instruments[0].wireIntervalsEquatorialS, star.decDeg * DEG, transit.culmination, 'west', 'mean-solar');
+        expect(Math.max(...reduced.residualsS.map(Math.abs))).toBeGreaterThan(4);
+      }
     }
   });
 
