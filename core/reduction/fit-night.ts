@@ -81,7 +81,7 @@ export async function fitNight(
   const timeSigmaS = Math.max(time.fit.unitWeightErrorS ?? time.robustSigma, TIME_SIGMA_FLOOR_S);
   const zenithSigmaRad = Math.max(zen.fit.unitWeightErrorRad ?? zen.robustSigma, ZENITH_SIGMA_FLOOR_RAD);
   const search = {
-    instrument: input.instrument, stars: input.stars, predictions: ctx.predictions, latitudeRad: ctx.site.latitudeRad, clock: time.fit.clock,
+    instrument: input.instrument, stars: input.stars, predictions: ctx.predictions, latitudeRad: ctx.site.latitudeRad, nightDateMjd: input.nightDateMjd, clock: time.fit.clock,
     azimuthArcsec: time.fit.azimuthArcsec, levelArcsec: time.fit.levelArcsec, collimationArcsec: time.fit.collimationArcsec, timeSigmaS, zenithSigmaRad,
   };
   const transits: TransitResult[] = [];

@@ -4,8 +4,11 @@ import { blunderHints } from '../instrument/blunder-hints.ts';
 import type { BlunderCandidate } from '../instrument/blunder-hints.ts';
 import { mayerFactors } from '../instrument/mayer.ts';
 import { ARCSEC } from '../units.ts';
+import { nominalClockSeconds } from './night-clock.ts';
 import type { NightClockModel } from './night-clock.ts';
+import { wireSeconds } from './prepare-transits.ts';
 import type { PreparedTransit } from './prepare-transits.ts';
+import { reduceToMeanWire } from '../instrument/wire-reduction.ts';
 import type { NightPredictions } from './star-predictions.ts';
 import { timeResidualS } from './time-fit.ts';
 
@@ -17,6 +20,7 @@ export interface BlunderSearch {
   readonly stars: readonly StarListRow[];
   readonly predictions: NightPredictions;
   readonly latitudeRad: number;
+  readonly nightDateMjd: number;
   readonly clock: NightClockModel;
   readonly azimuthArcsec: number;
   readonly levelArcsec: number;
@@ -30,7 +34,12 @@ function residualAs(t: PreparedTransit, star: StarListRow, culmination: 'upper' 
   try {
     const prediction = search.predictions.nearest(star, culmination, roughUtcS);
     const factors = mayerFactors(search.latitudeRad, prediction.topocentricDecRad, culmination);
-    const as: PreparedTransit = { ...t, star, prediction, factors, row: { ...t.row, starId: star.id, culmination } };
+    // The mean wire depends on the star (sec δ of the wire intervals, direction of motion): reduce again.
+    const scale = t.row.times.kind === 'utc' ? 'mean-solar' : search.instrument.clockTimeScale;
+    const intervals = search.instrument.wireIntervalsS.length === 0 ? [0] : search.instrument.wireIntervalsS;
+    const meanWire = reduceToMeanWire(wireSeconds(t.row, search.nightDateMjd), intervals, prediction.topocentricDecRad, culmination, t.row.clamp, scale);
+    const nominalS = nominalClockSeconds(meanWire.meanWireTimeS, scale);
+    const as: PreparedTransit = { ...t, star, prediction, factors, meanWire, nominalS, row: { ...t.row, starId: star.id, culmination } };
     return timeResidualS(as, search.clock, search.azimuthArcsec, search.levelArcsec, search.collimationArcsec);
   } catch {
     return null;

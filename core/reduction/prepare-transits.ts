@@ -83,7 +83,7 @@ function zenithFromReading(row: TransitLogRow, instrument: InstrumentRecord, pro
 }
 
 /** Wire times of a row in seconds from 0 h (UTC or clock) of the night's date. */
-function wireSeconds(row: TransitLogRow, nightDateMjd: number): { wireIndex: number; clockTimeS: number }[] {
+export function wireSeconds(row: TransitLogRow, nightDateMjd: number): { wireIndex: number; clockTimeS: number }[] {
   return row.times.kind === 'utc'
     ? row.times.wires.map((w) => ({ wireIndex: w.wireIndex, clockTimeS: utcCountS(w.utc) - nightDateMjd * SECONDS_PER_DAY }))
     : row.times.wires.map((w) => ({ wireIndex: w.wireIndex, clockTimeS: w.clockS }));
