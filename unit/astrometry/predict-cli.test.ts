@@ -41,6 +41,16 @@ describe('meridian-ledger predict (spawned)', () => {
     });
   });
 
+  it('adds the safety caution to a daylight transit near the Sun (Sun at RA 90°, Dec +23.4° at the June solstice)', () => {
+    const request = { star: { raDeg: 90, decDeg: 28, epochJyear: 2000 }, site: { latDeg: 46.2, lonDeg: 7.4, heightM: 820 }, afterUtc: '2025-06-21T00:00:00Z' };
+    const result = runPredict(`${JSON.stringify(request)}\n`);
+    expect(result.status).toBe(0);
+    const out = result.lines[0];
+    expect(out.sunAltitudeDeg as number).toBeGreaterThan(60);
+    expect(out.sunDistanceDeg as number).toBeLessThan(6);
+    expect(out.caution).toMatch(/daylight .* unfiltered instrument .* safety rules/);
+  });
+
   it('reports a bad line with its number and the field, processes the rest, skips blank lines, exits 1', () => {
     const good = input.split('\n')[0];
     const result = runPredict([good, '', '{"star":{"raDeg":10,"decDeg":95},"site":{"latDeg":1,"lonDeg":2},"afterUtc":"2025-01-01T00:00:00Z"}', 'nope', '{"star":{"raDeg":1,"decDeg":1},"site":{"latDeg":1,"lonDeg":2},"afterUtc":"2025-01-01T00:00:00Z","culmination":"middle"}', good].join('\n'));
