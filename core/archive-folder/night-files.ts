@@ -1,11 +1,12 @@
 import type { ClockComparison, CollimationReading, LevelReading, NightQuality, NightRecord, WeatherReading } from '../archive/records.ts';
 import { parseChoiceCell, parseDateCell, parseNumberCell, type CellResult } from '../formats/cells.ts';
 import { readCsvTable, type TableRow } from '../formats/csv-table.ts';
-import { parseUtcCell } from '../formats/utc-instant.ts';
-import { csvFile, type FolderRejection, numberText, utcInstantMjd, utcText } from './folder-text.ts';
+import { parseClockComparisons } from '../formats/clock-comparisons.ts';
+import { parseUtcCell, type UtcInstant, utcCountS } from '../formats/utc-instant.ts';
+import { csvFile, dateMjd, dateText, type FolderRejection, numberText, secondsText, utcInstantMjd, utcText } from './folder-text.ts';
 
 export const NIGHT_HEADER = ['id', 'instrumentId', 'siteId', 'localDate', 'observer', 'temperatureC', 'pressureHpa', 'humidityPercent', 'quality', 'note'];
-export const CLOCK_HEADER = ['nightId', 'utc', 'clockMinusUtcS', 'signal'];
+export const CLOCK_HEADER = ['nightDate', 'instrumentId', 'utc', 'clockS', 'signal'];
 export const LEVEL_HEADER = ['nightId', 'utc', 'levelArcsec'];
 export const COLLIMATION_HEADER = ['nightId', 'utc', 'collimationArcsec'];
 
@@ -19,10 +20,32 @@ export function writeNightFiles(nights: readonly NightRecord[]): { nights: strin
       night.weather === null ? '' : n(night.weather.temperatureC, night), night.weather === null ? '' : n(night.weather.pressureHpa, night),
       night.weather === null ? '' : n(night.weather.relativeHumidityPercent, night), night.quality, night.note,
     ])),
-    clock: csvFile(CLOCK_HEADER, sorted.flatMap((night) => night.clockComparisons.map((c) => [night.id, utcText(c.utcMjd), n(c.clockMinusUtcS, night), c.signal]))),
+    clock: csvFile(CLOCK_HEADER, sorted.flatMap((night) => night.clockComparisons.map((c) => clockCells(c, night)))),
     level: csvFile(LEVEL_HEADER, sorted.flatMap((night) => night.levelReadings.map((r) => [night.id, utcText(r.utcMjd), n(r.levelArcsec, night)]))),
     collimation: csvFile(COLLIMATION_HEADER, sorted.flatMap((night) => night.collimationReadings.map((r) => [night.id, utcText(r.utcMjd), n(r.collimationArcsec, night)]))),
   };
+}
+
+/** The clock-comparisons file's cells of one comparison (H4's format: the clock's reading at a signal time). */
+function clockCells(c: ClockComparison, night: NightRecord): string[] {
+  const day = dateMjd(night.localDate);
+  return [night.localDate, night.instrumentId, utcText(c.utcMjd), secondsText(c.utcMjd + c.clockMinusUtcS / 86_400, day), c.signal];
+}
+
+/** A comparison from the file's cells: clock − UTC = clock seconds − UTC seconds, both from 0 h of the night date. */
+function comparisonFromCells(utc: UtcInstant, clockS: number, nightDateMjd: number, signal: string): ClockComparison {
+  return { utcMjd: utcInstantMjd(utc), clockMinusUtcS: clockS - (utcCountS(utc) - nightDateMjd * 86_400), signal };
+}
+
+/**
+ * A comparison as it reads back from the file (times to 10 µs): what a writer of records that
+ * must round-trip exactly (the simulator) stores.
+ */
+export function canonicalClockComparison(c: ClockComparison, localDate: string): ClockComparison {
+  const day = dateMjd(localDate);
+  const utc = parseUtcCell(utcText(c.utcMjd));
+  if (!utc.ok) throw new RangeError(`canonicalClockComparison: ${utc.reason}`);
+  return comparisonFromCells(utc.value, Number(secondsText(c.utcMjd + c.clockMinusUtcS / 86_400, day)), day, c.signal.trim());
 }
 
 type Problems = { column: string; reason: string }[];
@@ -116,10 +139,22 @@ export function readNightFiles(files: { nights: Uint8Array; clock?: Uint8Array; 
     warnings.push(...table.warnings);
     for (const { nightId, value } of table.rows) into(byId.get(nightId)!, value);
   };
-  attach(files.clock, names.clock, CLOCK_HEADER, (c, utcMjd) => {
-    const s = c.number('clockMinusUtcS', 's', -1e6, 1e6);
-    return s === null ? null : { utcMjd, clockMinusUtcS: s, signal: c.text('signal') };
-  }, (e, v) => e.clock.push(v));
+  if (files.clock !== undefined) {
+    const parsed = parseClockComparisons(files.clock, names.clock);
+    rejected.push(...parsed.rejected.map((r) => ({ file: names.clock, ...r })));
+    warnings.push(...parsed.warnings);
+    const byDate = new Map([...byId.values()].map((e) => [`${e.night.instrumentId}\u0000${e.night.localDate}`, e]));
+    const instrumentIds = new Set([...byId.values()].map((e) => e.night.instrumentId));
+    for (const row of parsed.rows) {
+      const instrumentId = row.instrumentId ?? (instrumentIds.size === 1 ? [...instrumentIds][0] : null);
+      const entry = instrumentId === null ? undefined : byDate.get(`${instrumentId}\u0000${dateText(row.nightDateMjd)}`);
+      if (entry === undefined) {
+        rejected.push({ file: names.clock, row: row.row, line: row.line, column: instrumentId === null ? 'instrumentId' : 'nightDate', reason: instrumentId === null ? 'give the instrumentId: the folder has more than one instrument' : `no night of ${instrumentId} on ${dateText(row.nightDateMjd)} in nights.csv; add the night` });
+        continue;
+      }
+      entry.clock.push(comparisonFromCells(row.utc, row.clockS, row.nightDateMjd, row.signal));
+    }
+  }
   attach(files.level, names.level, LEVEL_HEADER, (c, utcMjd) => {
     const v = c.number('levelArcsec', 'arcsec', -3600, 3600);
     return v === null ? null : { utcMjd, levelArcsec: v };

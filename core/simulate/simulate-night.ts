@@ -1,4 +1,5 @@
 import { quantizedUtcMjd } from '../archive-folder/folder-text.ts';
+import { canonicalClockComparison } from '../archive-folder/night-files.ts';
 import type { ClockComparison, InstrumentRecord, LevelReading, WeatherReading } from '../archive/records.ts';
 import type { Culmination } from '../instrument/culmination.ts';
 import type { StarMotion } from '../astrometry/space-motion.ts';
@@ -46,7 +47,7 @@ const MINIMUM_GAP_DAYS = 90 / SECONDS_PER_DAY;
 
 /**
  * One night at the instrument: weather at the start, 3–5 clock comparisons spread over the
- * sessions (noise `clockComparisonNoiseS`, written to 0.1 ms), a level reading at the start and
+ * sessions (noise `clockComparisonNoiseS`, clock − UTC to 0.1 ms, then times as the folder writes them), a level reading at the start and
  * end (noise `levelNoiseArcsec`, written to 0.01″), and the transits — each candidate taken with
  * probability 0.9, no two within 90 s. Six transits in ten carry their own weather; the others are
  * refracted with the night's weather, as a reduction would assume, so the truth stays exact.
@@ -63,7 +64,7 @@ export function simulateNight(setting: NightSetting, planned: PlannedNight, stat
   for (let k = 0; k < comparisonCount; k++) {
     const utcMjd = quantizedUtcMjd(first + ((last - first) * k) / (comparisonCount - 1));
     const reading = clockMinusUtcS(utcMjd) + random.normal(0, options.clockComparisonNoiseS);
-    clockComparisons.push({ utcMjd, clockMinusUtcS: Math.round(reading * 1e4) / 1e4, signal: 'GNSS PPS' });
+    clockComparisons.push(canonicalClockComparison({ utcMjd, clockMinusUtcS: Math.round(reading * 1e4) / 1e4, signal: 'GNSS PPS' }, planned.localDate));
   }
   const levelReadings = [first, last].map((utcMjd) => ({
     utcMjd: quantizedUtcMjd(utcMjd), levelArcsec: Math.round((state.levelArcsec + random.normal(0, options.levelNoiseArcsec)) * 100) / 100,

@@ -88,7 +88,8 @@ describe('writeArchiveFolder / readArchiveFolder', () => {
     const transitRows = read.rejected.filter((r) => r.file.startsWith('transits/'));
     expect(transitRows.length).toBe(archive.transits.filter((t) => t.nightId === firstNight).length);
     expect(transitRows[0]).toMatchObject({ column: 'nightDate', reason: expect.stringContaining('nights.csv') });
-    expect(read.rejected.some((r) => r.file === 'clock-comparisons.csv' && r.column === 'nightId')).toBe(true);
+    expect(read.rejected.some((r) => r.file === 'clock-comparisons.csv' && r.column === 'nightDate' && r.reason.includes('nights.csv'))).toBe(true);
+    expect(read.rejected.some((r) => r.file === 'level-readings.csv' && r.column === 'nightId')).toBe(true);
   });
 
   it('refuses a folder without its identity file or with a newer format version, naming the file', () => {
