@@ -126,7 +126,20 @@ function blockCovariance(
   cross.fill(0, 0, l * t);
   for (let a = 0; a < l; a++) {
     const rowC = a * t;
-    for (let b = 0; b < t; b++) {
+    let b = 0;
+    for (; b + 3 < t; b += 4) {
+      // Four rows of Q_tt per sweep of the output row (about twice as fast in V8 as one).
+      const g0 = G[rowC + b];
+      const g1 = G[rowC + b + 1];
+      const g2 = G[rowC + b + 2];
+      const g3 = G[rowC + b + 3];
+      const q0 = b * t;
+      const q1 = q0 + t;
+      const q2 = q1 + t;
+      const q3 = q2 + t;
+      for (let x = 0; x < t; x++) cross[rowC + x] += g0 * Qtt[q0 + x] + g1 * Qtt[q1 + x] + g2 * Qtt[q2 + x] + g3 * Qtt[q3 + x];
+    }
+    for (; b < t; b++) {
       const gab = G[rowC + b];
       if (gab === 0) continue;
       const rowQ = b * t;

@@ -28,21 +28,34 @@ export interface ReducedSystem {
 const BLOCKS_PER_CHUNK = 128;
 
 function subtractSchur(ws: BlockWorkspace): void {
-  // N_tt −= N_ltᵀ·G over the upper triangle; b_t −= N_ltᵀ·y. Cost l·t²/2.
+  // N_tt −= N_ltᵀ·G over the upper triangle; b_t −= N_ltᵀ·y. Cost l·t²/2. Four locals per sweep
+  // of a row of N_tt: one load and store of N_tt per four products (about twice as fast in V8).
   const l = ws.localCount;
   const t = ws.touchedCount;
   const Nlt = ws.normalLocalTouched;
   const G = ws.gain;
   const Ntt = ws.normalTouched;
-  for (let a = 0; a < l; a++) {
-    const rowL = a * t;
-    const ya = ws.solvedLocal[a];
-    for (let i = 0; i < t; i++) {
-      const n = Nlt[rowL + i];
-      if (n === 0) continue;
-      ws.rhsTouched[i] -= n * ya;
-      const rowI = i * t;
-      for (let j = i; j < t; j++) Ntt[rowI + j] -= n * G[rowL + j];
+  for (let i = 0; i < t; i++) {
+    const rowI = i * t;
+    let a = 0;
+    for (; a + 3 < l; a += 4) {
+      const r0 = a * t;
+      const r1 = r0 + t;
+      const r2 = r1 + t;
+      const r3 = r2 + t;
+      const n0 = Nlt[r0 + i];
+      const n1 = Nlt[r1 + i];
+      const n2 = Nlt[r2 + i];
+      const n3 = Nlt[r3 + i];
+      ws.rhsTouched[i] -= n0 * ws.solvedLocal[a] + n1 * ws.solvedLocal[a + 1] + n2 * ws.solvedLocal[a + 2] + n3 * ws.solvedLocal[a + 3];
+      for (let j = i; j < t; j++) Ntt[rowI + j] -= n0 * G[r0 + j] + n1 * G[r1 + j] + n2 * G[r2 + j] + n3 * G[r3 + j];
+    }
+    for (; a < l; a++) {
+      const r0 = a * t;
+      const n0 = Nlt[r0 + i];
+      if (n0 === 0) continue;
+      ws.rhsTouched[i] -= n0 * ws.solvedLocal[a];
+      for (let j = i; j < t; j++) Ntt[rowI + j] -= n0 * G[r0 + j];
     }
   }
 }
