@@ -38,7 +38,8 @@ export interface ObservationNoise {
 /**
  * Turns a true culmination into the instrument's record. The instrument's mean wire is crossed
  * where the observed hour angle is −τ (upper) or 12 h − τ (lower), τ = Mayer's correction
- * (core/instrument/mayer.ts) with that night's a, b, c and the star's OBSERVED declination;
+ * (core/instrument/mayer.ts) with that night's a, b, c and the star's topocentric (unrefracted)
+ * declination, as the nightly reduction (core/reduction) uses it;
  * wire k at a further −(±)I_k (wire-reduction.ts: sin I = sin i sec δ, the sign + at upper culmination
  * with clamp west); clock reading = UTC + offset + rate·(UTC − reference); Gaussian noise per wire;
  * missed wires are NaN (at least three are kept). The zenith distance z_m read on the micrometer
@@ -58,7 +59,7 @@ export function observeTransit(
   random: SeededRandom,
 ): RecordedTransit {
   const place = truth.place;
-  const declinationRad = place.observedDeclinationRad;
+  const declinationRad = place.topocentricDeclinationRad;
   const factors = mayerFactors(latitudeRad, declinationRad, culmination);
   const tauRad = mayerCorrectionRad(
     { azimuthRad: night.azimuthArcsec * ARCSEC, levelRad: night.levelArcsec * ARCSEC, collimationRad: night.collimationArcsec * ARCSEC },

@@ -110,7 +110,7 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
       if (blunder !== null) blunders.push({ ...blunder, transitId: record.id });
       // Times as the archive folder writes them (10 µs), the mean wire reduced from those times.
       record.wireClockMjd = record.wireClockMjd.map((m) => (Number.isFinite(m) ? quantizedClockMjd(m, dayMjd) : Number.NaN));
-      record.clockMjd = quantizedClockMjd(meanWireClockMjd(record.wireClockMjd, instrument.wireIntervalsEquatorialS, t.observedDeclinationRad, t.culmination), dayMjd);
+      record.clockMjd = quantizedClockMjd(meanWireClockMjd(record.wireClockMjd, instrument.wireIntervalsEquatorialS, t.wireDeclinationRad, t.culmination), dayMjd);
       transits.push({
         id: record.id, nightId, starId: record.starId, instrumentId: instrument.id, culmination: t.culmination,
         clockMjd: record.clockMjd, wireClockMjd: record.wireClockMjd, utcMjd: approximateUtcMjd(record.clockMjd, simulated.clockComparisons),
@@ -127,7 +127,7 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
       thermalRaArcsecPerC: options.thermal.raArcsecPerC, thermalDecArcsecPerC: options.thermal.decArcsecPerC,
       thermalReferenceTemperatureC: options.thermal.referenceTemperatureC,
       latitudeVariationAmplitudeArcsec: options.latitudeVariationArcsec, latitudeVariationPeriodDays: LATITUDE_VARIATION_PERIOD_DAYS,
-      skyModel: 'core/astrometry observedPlace (IAU 2006/2000A, relativistic aberration with Earth velocity × (κ₀+Δκ)/κ₀, diurnal aberration in the topocentric place, solar deflection, A tan Z + B tan³ Z refraction with the weather written with the transit or else the night); bundled leap seconds, no EOP table (UT1 − UTC = 0, no polar motion); Mayer factors and wire intervals at the observed (refracted) declination; clamp west throughout',
+      skyModel: 'core/astrometry observedPlace (IAU 2006/2000A, relativistic aberration with Earth velocity × (κ₀+Δκ)/κ₀, diurnal aberration in the topocentric place, solar deflection, A tan Z + B tan³ Z refraction with the weather written with the transit or else the night); bundled leap seconds, no EOP table (UT1 − UTC = 0, no polar motion); Mayer factors and wire intervals at the topocentric (unrefracted) declination, as core/reduction reduces them (refraction of the image along the wires, ~10 ms/cos z over 30 s, is not modelled on either side); clamp west throughout',
     },
     instruments: [{ id: instrument.id, flexureArcsec: options.flexureArcsec, readingScaleArcsecPerUnit: instrument.readingScaleArcsecPerUnit, readingSense: instrument.readingSense }],
     stars: programme.map((p) => p.truth), nights: trueNights,

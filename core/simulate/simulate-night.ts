@@ -31,8 +31,8 @@ export interface SimulatedTransit extends RecordedTransit {
   readonly culmination: Culmination;
   /** Weather written with the transit (null: the night's applies); the refraction used it. */
   readonly weather: WeatherReading | null;
-  /** Observed (refracted) declination the wires and Mayer's factors used, rad. */
-  readonly observedDeclinationRad: number;
+  /** Topocentric declination the wires and Mayer's factors used, rad. */
+  readonly wireDeclinationRad: number;
 }
 
 export interface SimulatedNight {
@@ -90,7 +90,7 @@ export function simulateNight(setting: NightSetting, planned: PlannedNight, stat
       latitudeRad: state.latitudeVariationArcsec * ARCSEC,
     };
     const recorded = observeTransit(truth, candidate.culmination, instrument, state, shifts, noise, setting.latitudeDeg * (Math.PI / 180), random);
-    transits.push({ ...recorded, starIndex: candidate.starIndex, culmination: candidate.culmination, weather, observedDeclinationRad: truth.place.observedDeclinationRad });
+    transits.push({ ...recorded, starIndex: candidate.starIndex, culmination: candidate.culmination, weather, wireDeclinationRad: truth.place.topocentricDeclinationRad });
   }
   return { weather: nightWeather, clockComparisons, levelReadings, transits };
 }

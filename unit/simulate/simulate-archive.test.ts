@@ -45,7 +45,7 @@ function reduceByHand(a: SimulatedArchive, transit: TransitRecord) {
   for (let i = 0; i < 3; i++) utc = transit.clockMjd - (night.clockOffsetS + night.clockRateSPerDay * (utc - night.clockReferenceUtcMjd)) / SECONDS_PER_DAY;
   const start = mjdToJulianDate(utc - 0.1);
   const predicted = predictTransit(motion, site, weather, start, transit.culmination, (u) => timeScale.fromUtc(u), iauEarthOrientation);
-  const factors = mayerFactors(site.latitudeRad, predicted.place.observedDeclinationRad, transit.culmination);
+  const factors = mayerFactors(site.latitudeRad, predicted.place.topocentricDeclinationRad, transit.culmination);
   const tau = mayerCorrectionRad({ azimuthRad: night.azimuthArcsec * ARCSEC, levelRad: night.levelArcsec * ARCSEC, collimationRad: night.collimationArcsec * ARCSEC }, factors, 'west');
   const predictedUtc = predicted.utc.jd1 - 2_400_000.5 + predicted.utc.jd2 - tau / HOUR_ANGLE_RATE;
   const timeResidualS = (utc - predictedUtc) * SECONDS_PER_DAY;
