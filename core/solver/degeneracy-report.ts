@@ -3,8 +3,12 @@ import type { ParameterPrior } from './problem.ts';
 import { SINGULAR_RELATIVE_EIGENVALUE } from './small-inverse.ts';
 import { symmetricEigen } from './symmetric-eigen.ts';
 
-/** Relative eigenvalue below which a direction is reported as weak (condition > 10⁶; common practice). */
-export const WEAK_RELATIVE_EIGENVALUE = 1e-6;
+/**
+ * Relative eigenvalue below which a direction is reported as weak: condition index
+ * √(λmax/λ) above 30, the level Belsley, Kuh & Welsch (Regression Diagnostics, 1980, §3.3) take
+ * as a strong near-dependency (λ/λmax < 1/900).
+ */
+export const WEAK_RELATIVE_EIGENVALUE = 1 / 900;
 /** Coefficients smaller than this (in a unit eigenvector) are left out of the listing. */
 const LISTED_COEFFICIENT = 0.05;
 /** A constraint or prior whose unit row projects on a direction by more than this resolves it. */

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { jointSolve } from '../../core/solver/joint-solve.ts';
+import { ObservationRowsBuilder } from '../../core/solver/observation-rows.ts';
 import type { LinearConstraint } from '../../core/solver/problem.ts';
-import { seededRandom } from './random.ts';
+import { gaussian, seededRandom } from './random.ts';
 import { starNightProblem } from './star-night-problem.ts';
 
 const STARS = 10;
@@ -106,5 +107,33 @@ describe('a common shift and drift of every night zero point against every star 
     expect([...solution.localUndetermined.subarray(solution.localOffset[5], solution.localOffset[6])]).toEqual([1, 1]);
     expect(solution.localUndetermined.reduce((s, x) => s + x, 0)).toBe(2);
     expect(allFinite(solution.localError)).toBe(true);
+  });
+});
+
+describe('a star seen in one season only', () => {
+  it('shows its offset and parallax as the weak combination, and no other star', () => {
+    // Invented: 4 stars, offset (partial 1) and parallax (partial sin of the year's phase, an
+    // idealised parallax factor). Stars 1–3 are seen all year; star 0 only on days 80–100 of
+    // each year, where the factor is ≈ 1, so its parallax can hardly be told from its offset.
+    const random = seededRandom(23);
+    const builder = new ObservationRowsBuilder();
+    for (let star = 0; star < 4; star++) {
+      for (let k = 0; k < 200; k++) {
+        const day = star === 0 ? 365.25 * Math.floor(k / 20) + 80 + (k % 20) : random() * 3652;
+        const factor = Math.sin((2 * Math.PI * day) / 365.25);
+        builder.beginRow(-1, 0.1 * gaussian(random), 100);
+        builder.addGlobal(2 * star, 1);
+        builder.addGlobal(2 * star + 1, factor);
+      }
+    }
+    const names = [0, 1, 2, 3].flatMap((s) => [`star ${s} offset`, `star ${s} parallax`]);
+    const solution = jointSolve({ globalNames: names, blockLocalCount: new Int32Array(0), rows: builder.finish() }, { robust: false });
+    const [weakest, next] = solution.degeneracy!.weakest;
+    expect(weakest.status).toBe('weak');
+    expect(weakest.resolution).toBe('data');
+    expect(weakest.combination.map((c) => c.name).sort()).toEqual(['star 0 offset', 'star 0 parallax']);
+    expect(weakest.combination[0].coefficient * weakest.combination[1].coefficient).toBeLessThan(0);
+    expect(next.status).toBe('determined');
+    expect(Math.abs(solution.globalCorrelation[0 * 8 + 1])).toBeGreaterThan(0.999);
   });
 });
