@@ -1,13 +1,15 @@
 import { TaskCancelledError, type TaskControl } from '../../core/task/task-control.ts';
 import { parseToWorker, type FromWorker, type TaskKind, type TaskRequest, type TaskResult } from './protocol.ts';
-import { runEclipticField } from './tasks/eclipticField.ts';
+import { runEclipticField, type EclipticFieldRequest } from './tasks/eclipticField.ts';
+import { EXCHANGE_KINDS, runExchangeTask, type ExchangeRequest } from './tasks/exchangeTasks.ts';
 
 /** Runs one request under a control; one entry per task kind. */
 export type TaskRunner = (request: TaskRequest, control: TaskControl) => Promise<TaskResult>;
 export type TaskTable = Readonly<Record<TaskKind, TaskRunner>>;
 
 export const TASKS: TaskTable = {
-  'ecliptic-field': runEclipticField,
+  'ecliptic-field': (request, control) => runEclipticField(request as EclipticFieldRequest, control),
+  ...(Object.fromEntries(EXCHANGE_KINDS.map((kind) => [kind, (request: TaskRequest, control: TaskControl) => runExchangeTask(request as ExchangeRequest, control)])) as Record<ExchangeRequest['kind'], TaskRunner>),
 };
 
 interface RunningJob {

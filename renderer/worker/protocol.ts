@@ -1,4 +1,5 @@
 import type { EclipticFieldRequest, EclipticFieldResult } from './tasks/eclipticField.ts';
+import { isExchangeKind, type ExchangeRequest, type ExchangeResult } from './tasks/exchangeTasks.ts';
 
 /**
  * The messages between the renderer and the compute worker. Hand-written discriminated unions:
@@ -6,8 +7,8 @@ import type { EclipticFieldRequest, EclipticFieldResult } from './tasks/ecliptic
  */
 
 /** What a job computes; one member per task the worker knows. */
-export type TaskRequest = EclipticFieldRequest;
-export type TaskResult = EclipticFieldResult;
+export type TaskRequest = EclipticFieldRequest | ExchangeRequest;
+export type TaskResult = EclipticFieldResult | ExchangeResult;
 export type TaskKind = TaskRequest['kind'];
 
 export type ToWorker =
@@ -47,6 +48,10 @@ export function parseToWorker(message: unknown): ToWorker | string {
       jobId: message.jobId,
       request: { kind: 'ecliptic-field', starCount: Number(request.starCount), seed: Number(request.seed) },
     };
+  }
+  if (isExchangeKind(request.kind) && typeof request.databaseName === 'string') {
+    // Structured clone keeps the shape; each Exchange task checks its own fields as it reads them.
+    return { type: 'start', jobId: message.jobId, request: request as unknown as ExchangeRequest };
   }
   return `start message for job ${message.jobId}: unknown task kind ${JSON.stringify(request.kind)}`;
 }

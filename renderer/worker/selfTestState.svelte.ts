@@ -31,9 +31,11 @@ export class SelfTestState {
     const outcome = await job.outcome;
     this.#job = null;
     if (outcome.kind === 'finished') {
+      const result = outcome.result;
+      if (result.kind !== 'ecliptic-field') throw new Error(`self-test: the worker answered a ${result.kind} job with the wrong result`);
       this.phase = 'finished';
-      this.done = outcome.result.starCount;
-      this.result = outcome.result;
+      this.done = result.starCount;
+      this.result = result;
     } else if (outcome.kind === 'cancelled') {
       this.phase = 'cancelled';
       this.done = outcome.done;

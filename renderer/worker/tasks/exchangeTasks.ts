@@ -1,0 +1,124 @@
+import type { TaskControl } from '../../../core/task/task-control.ts';
+import { decodeUtf8 } from '../../../core/formats/utf8.ts';
+import { ArchiveDatabase } from '../../store/database.ts';
+import { nowUtcIso } from '../../store/nowUtcIso.ts';
+import { exportBundle, recordExport } from '../../exchange/bundleExport.ts';
+import { countArchiveRows, restoreBundle, verifyBundle, type RestoreMode } from '../../exchange/bundleRestore.ts';
+import { importEarthOrientation, importLeapSecondsList } from '../../exchange/iersTables.ts';
+import { planImport, type ImportFileRequest } from '../../exchange/importPlan.ts';
+import type { ImportReport } from '../../exchange/importReport.ts';
+import { beginImport, writeImport } from '../../exchange/stagedWriter.ts';
+import { describeStorageError } from '../../exchange/describeStorageError.ts';
+
+/** Hooks for the end-to-end tests only; the view sends them only when the page has `?test-hooks`. */
+export interface ExchangeTestHooks {
+  /** Throw a QuotaExceededError DOMException from the n-th transits.bulkPut (1-based). */
+  readonly quotaOnTransitWrite?: number;
+  /** Wait this long at every chunk boundary, so a test can interrupt the import mid-write. */
+  readonly chunkDelayMs?: number;
+}
+
+export type ExchangeRequest =
+  | { readonly kind: 'exchange-validate'; readonly databaseName: string; readonly file: ImportFileRequest }
+  | { readonly kind: 'exchange-import'; readonly databaseName: string; readonly file: ImportFileRequest; readonly testHooks: ExchangeTestHooks | null }
+  | { readonly kind: 'bundle-export'; readonly databaseName: string; readonly producer: string }
+  | { readonly kind: 'bundle-verify'; readonly databaseName: string; readonly bytes: Uint8Array }
+  | { readonly kind: 'bundle-restore'; readonly databaseName: string; readonly bytes: Uint8Array; readonly mode: RestoreMode }
+  | { readonly kind: 'iers-import'; readonly databaseName: string; readonly fileName: string; readonly bytes: Uint8Array };
+
+export type ExchangeResult =
+  | { readonly kind: 'exchange-validate'; readonly report: ImportReport }
+  | { readonly kind: 'exchange-import'; readonly report: ImportReport; readonly rowCounts: Readonly<Record<string, number>> }
+  | { readonly kind: 'bundle-export'; readonly bytes: Uint8Array; readonly createdUtc: string; readonly rowCounts: Readonly<Record<string, number>> }
+  | {
+      readonly kind: 'bundle-verify';
+      readonly createdUtc: string; readonly producer: string; readonly schemaVersion: number;
+      readonly tables: readonly { readonly name: string; readonly rows: number }[]; readonly archiveRows: number;
+    }
+  | { readonly kind: 'bundle-restore'; readonly rowCounts: Readonly<Record<string, number>> }
+  | { readonly kind: 'iers-import'; readonly what: 'leap-seconds' | 'earth-orientation'; readonly summary: string };
+
+export const EXCHANGE_KINDS: readonly ExchangeRequest['kind'][] = ['exchange-validate', 'exchange-import', 'bundle-export', 'bundle-verify', 'bundle-restore', 'iers-import'];
+
+export function isExchangeKind(kind: string): kind is ExchangeRequest['kind'] {
+  return (EXCHANGE_KINDS as readonly string[]).includes(kind);
+}
+
+function installTestHooks(database: ArchiveDatabase, hooks: ExchangeTestHooks | null, control: TaskControl): TaskControl {
+  if (hooks === null) return control;
+  if (hooks.quotaOnTransitWrite !== undefined) {
+    const original = database.transits.bulkPut.bind(database.transits);
+    let calls = 0;
+    database.transits.bulkPut = ((...args: Parameters<typeof original>) => {
+      calls++;
+      if (calls === hooks.quotaOnTransitWrite) throw new DOMException('The quota has been exceeded (test hook).', 'QuotaExceededError');
+      return original(...args);
+    }) as typeof original;
+  }
+  const delay = hooks.chunkDelayMs ?? 0;
+  return delay <= 0 ? control : { ...control, yieldToHost: () => new Promise<void>((resolve) => setTimeout(resolve, delay)) };
+}
+
+async function runIersImport(database: ArchiveDatabase, fileName: string, bytes: Uint8Array): Promise<ExchangeResult> {
+  const decoded = decodeUtf8(bytes);
+  if (!decoded.ok) throw new Error(`${fileName}: ${decoded.reason}`);
+  if (/^#@/m.test(decoded.text)) {
+    const info = await importLeapSecondsList(database, decoded.text, fileName, nowUtcIso());
+    return { kind: 'iers-import', what: 'leap-seconds', summary: `${info.steps} leap-second steps from ${fileName}, valid until MJD ${info.expiresMjd}` };
+  }
+  const info = await importEarthOrientation(database, decoded.text, fileName, nowUtcIso());
+  return { kind: 'iers-import', what: 'earth-orientation', summary: `${info.lastMjd - info.firstMjd + 1} days of Earth orientation from ${fileName} (observed to MJD ${info.lastObservedMjd})` };
+}
+
+async function runWith(database: ArchiveDatabase, request: ExchangeRequest, control: TaskControl): Promise<ExchangeResult> {
+  switch (request.kind) {
+    case 'exchange-validate':
+      return { kind: request.kind, report: (await planImport(database, request.file, nowUtcIso())).report };
+    case 'exchange-import': {
+      const hooked = installTestHooks(database, request.testHooks, control);
+      const plan = await planImport(database, request.file, nowUtcIso());
+      if (plan.report.missingPrerequisites.length > 0) throw new Error(plan.report.missingPrerequisites.join(' '));
+      const importId = await beginImport(database, request.file.fileName, request.file.kind, nowUtcIso());
+      const rowCounts = await writeImport(database, importId, plan.writes, hooked, nowUtcIso);
+      return { kind: request.kind, report: plan.report, rowCounts };
+    }
+    case 'bundle-export': {
+      const createdUtc = nowUtcIso();
+      const exported = await exportBundle(database, control, createdUtc, request.producer);
+      await recordExport(database, createdUtc);
+      return { kind: request.kind, bytes: exported.bytes, createdUtc, rowCounts: exported.rowCounts };
+    }
+    case 'bundle-verify': {
+      const bundle = await verifyBundle(database, request.bytes, control);
+      const { createdUtc, producer, schemaVersion } = bundle.header;
+      return { kind: request.kind, createdUtc, producer, schemaVersion, tables: bundle.manifest.tables.map((t) => ({ name: t.name, rows: t.rows })), archiveRows: await countArchiveRows(database) };
+    }
+    case 'bundle-restore':
+      return { kind: request.kind, rowCounts: await restoreBundle(database, await verifyBundle(database, request.bytes, control), request.mode) };
+    case 'iers-import':
+      return runIersImport(database, request.fileName, request.bytes);
+  }
+}
+
+const ACTIONS: Readonly<Record<ExchangeRequest['kind'], string>> = {
+  'exchange-validate': 'Checking the file', 'exchange-import': 'The import', 'bundle-export': 'The export',
+  'bundle-verify': 'Checking the bundle', 'bundle-restore': 'The restore', 'iers-import': 'The IERS import',
+};
+
+/**
+ * Runs one Exchange job in the worker against the archive database named in the request (the
+ * worker opens its own connection and closes it at the end, whatever happens).
+ */
+export async function runExchangeTask(request: ExchangeRequest, control: TaskControl): Promise<ExchangeResult> {
+  const database = new ArchiveDatabase(request.databaseName);
+  try {
+    return await runWith(database, request, control);
+  } catch (error) {
+    // Our own refusals already say what is wrong; storage errors (Dexie, IndexedDB) get the advice.
+    const name = error instanceof Error ? error.name : '';
+    if (['Error', 'BundleError', 'SyntaxError', 'RangeError', 'TaskCancelledError'].includes(name)) throw error;
+    throw new Error(describeStorageError(ACTIONS[request.kind], error).message);
+  } finally {
+    database.close();
+  }
+}
