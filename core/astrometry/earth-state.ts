@@ -4,6 +4,7 @@ import type { Vec3 } from '../math/vec3.ts';
 import { JD_J2000 } from '../units.ts';
 import { FRAME_BIAS } from './frame-bias.ts';
 import type { TwoPartJulianDate } from './instant.ts';
+import { sunBarycentricState } from './sun-barycentric-offset.ts';
 
 /**
  * Earth's centre of mass relative to the solar-system barycentre and to the Sun, ICRS (BCRS) axes:
@@ -30,6 +31,24 @@ export function earthState(tdb: TwoPartJulianDate): EarthState {
   return {
     barycentricPositionAu: applyTranspose(FRAME_BIAS, [bary.x, bary.y, bary.z]),
     barycentricVelocityAuPerDay: applyTranspose(FRAME_BIAS, [bary.vx, bary.vy, bary.vz]),
+    heliocentricPositionAu: applyTranspose(FRAME_BIAS, [helio.x, helio.y, helio.z]),
+  };
+}
+
+/**
+ * The same state at a fraction of the cost (≈ 5 µs instead of ≈ 25 µs): astronomy-engine's
+ * heliocentric Earth plus the Sun's barycentric offset from Keplerian giant planets
+ * (sun-barycentric-offset.ts). Differs from `earthState` by < 0.05 m/s and < 3e-5 au over
+ * 1900–2100 (unit/astrometry/earth-state.test.ts); used by the per-night context.
+ */
+export function earthStateFast(tdb: TwoPartJulianDate): EarthState {
+  const days = tdb.jd1 - JD_J2000 + tdb.jd2;
+  const helio = HelioState(Body.Earth, AstroTime.FromTerrestrialTime(days));
+  const sun = sunBarycentricState(days);
+  const p = sun.positionAu, v = sun.velocityAuPerDay;
+  return {
+    barycentricPositionAu: applyTranspose(FRAME_BIAS, [helio.x + p[0], helio.y + p[1], helio.z + p[2]]),
+    barycentricVelocityAuPerDay: applyTranspose(FRAME_BIAS, [helio.vx + v[0], helio.vy + v[1], helio.vz + v[2]]),
     heliocentricPositionAu: applyTranspose(FRAME_BIAS, [helio.x, helio.y, helio.z]),
   };
 }

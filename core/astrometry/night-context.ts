@@ -4,7 +4,7 @@ import { applyTranspose, multiply, rotationZ } from '../math/mat3.ts';
 import type { Vec3 } from '../math/vec3.ts';
 import { SECONDS_PER_DAY, TAU } from '../units.ts';
 import { ASTRONOMICAL_UNIT_M, EARTH_ROTATION_RATE_RAD_PER_S, GM_SUN_AU3_PER_DAY2 } from './constants.ts';
-import { earthState } from './earth-state.ts';
+import { earthState, earthStateFast } from './earth-state.ts';
 import { iauEarthOrientation } from './iau-earth-orientation.ts';
 import type { AstrometricInstant, TwoPartJulianDate } from './instant.ts';
 import { moonGeocentricAu } from './moon-low-precision.ts';
@@ -21,8 +21,8 @@ export interface NightContextOptions {
   readonly weather: Weather | null;
   readonly instantFromTt: (tt: TwoPartJulianDate) => AstrometricInstant;
   /**
-   * 'fast' (default): Earth state once with analytic acceleration and jerk, full nutation once
-   * plus the 2000B change at the five instants.
+   * 'fast' (default): Earth state once (`earthStateFast`) with analytic acceleration and jerk,
+   * full nutation once plus the 2000B change at the five instants.
    * 'exact': Earth state at three instants and full nutation at all five (about 3× the cost).
    */
   readonly mode?: 'fast' | 'exact';
@@ -157,7 +157,7 @@ function quartic(out: Float64Array, offset: number, y: readonly number[]): void 
  * (Sun: time derivative of the former with Earth's velocity; Moon: numerical, over ±0.05 day).
  */
 function fillEarth(c: Float64Array, centre: TwoPartJulianDate, days: number): void {
-  const earth = earthState(centre);
+  const earth = earthStateFast(centre);
   const r = earth.heliocentricPositionAu, v = earth.barycentricVelocityAuPerDay;
   const moonPull = (d: number): Vec3 => {
     const m = moonGeocentricAu(d);

@@ -53,8 +53,10 @@ describe('createNightContext + reduceNight', () => {
         for (let p = 3; p < RESULT_STRIDE; p++) {
           const scaleHa = p % 3 === 0 ? Math.cos(full[1]) : 1;
           const d = Math.abs(out[o + p] - full[p]) * scaleHa;
-          // 1e-5 rad/rad of a factor is 0.2 µas for a 20 mas change of κ or parallax.
-          expect(d, `${c.kind} partial ${p} offset ${offset}`).toBeLessThan(1e-5);
+          // 5e-5 rad/rad of a factor is 1 µas for a 20 mas change of κ or parallax; in 'fast' mode
+          // Earth's position differs by up to 3e-5 au (earthStateFast), which moves parallax
+          // factors by the same relative amount.
+          expect(d, `${c.kind} partial ${p} offset ${offset}`).toBeLessThan(5e-5);
           worstPartial = Math.max(worstPartial, d);
         }
       });
