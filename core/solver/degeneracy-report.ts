@@ -5,7 +5,7 @@ import { symmetricEigen } from './symmetric-eigen.ts';
 
 /**
  * Relative eigenvalue below which a direction is reported as weak: condition index
- * √(λmax/λ) above 30, the level Belsley, Kuh & Welsch (Regression Diagnostics, 1980, §3.3) take
+ * √(λmax/λ) above 30, the level Belsley, Kuh & Welsch (Regression Diagnostics, 1980, §3.3; section from memory) take
  * as a strong near-dependency (λ/λmax < 1/900).
  */
 export const WEAK_RELATIVE_EIGENVALUE = 1 / 900;

@@ -27,7 +27,7 @@ export interface FinishInput {
 
 /**
  * Variance factor for a Huber M-estimate, replacing χ²/dof: Huber's asymptotic covariance
- * K²·[Σψ(u)²/(n−p)]/[(Σψ′(u)/n)²]·s²·(XᵀW₀X)⁻¹ (Huber, Robust Statistics, 1981, §7.6, first
+ * K²·[Σψ(u)²/(n−p)]/[(Σψ′(u)/n)²]·s²·(XᵀW₀X)⁻¹ (Huber, Robust Statistics, 1981, §7.6 from memory, first
  * form; K = 1 + (p/n)·Var ψ′/(E ψ′)²), with (XᵀW₀X)⁻¹ taken as mean(robust factor)·(XᵀW_rX)⁻¹
  * because only the reweighted matrix is at hand. The plain IRLS covariance would understate the
  * errors by ~10 % on clean normal data at k = 1.345 (E ψu/E w ≈ 0.87 against E ψ²/(E ψ′)² ≈ 1.05).

@@ -26,7 +26,7 @@ export const MAD_TO_SIGMA = 1.482602218505602;
  * studentised residuals z_k = v_k·√w_k / √(1 − h_k) over fitted, testable rows — the median
  * absolute deviation about zero (least-squares residuals centre on zero), leverage-corrected so
  * that blocks with few rows (large h_k) do not bias it low (Hampel, J. Amer. Stat. Assoc. 69, 383,
- * 1974; studentisation as in Belsley, Kuh & Welsch, Regression Diagnostics, 1980, §2.1).
+ * 1974; studentisation as in Belsley, Kuh & Welsch, Regression Diagnostics, 1980, §2.1; sections from memory).
  * Returns 0 when every testable residual is zero or no row is testable.
  */
 export function robustScale(residual: Float64Array, baseWeight: Float64Array, leverage: Float64Array): number {
@@ -42,7 +42,7 @@ export function robustScale(residual: Float64Array, baseWeight: Float64Array, le
 
 /**
  * Huber weight factors ψ(u)/u = min(1, k/|u|) with u_k = v_k·√w_k / scale (Huber, Ann. Math.
- * Stat. 35, 73, 1964; Robust Statistics, 1981, §7.8: iteratively reweighted least squares). The
+ * Stat. 35, 73, 1964; Robust Statistics, 1981, §7.8, section from memory: iteratively reweighted least squares). The
  * final weight is w_k·factor_k. Writes factor, u and flag per row; returns the largest factor change.
  * A zero scale (exact fit) leaves every factor at 1.
  */

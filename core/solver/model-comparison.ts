@@ -24,7 +24,7 @@ export interface NestedFTest {
  *   F = ((χ²_reduced − χ²_full)/(p_full − p_reduced)) / (χ²_full/(n − p_full))
  * distributed as F(p_full − p_reduced, n − p_full) under the null hypothesis (e.g. Bevington &
  * Robinson, Data Reduction and Error Analysis, 3rd ed., §11.4; Draper & Smith, Applied
- * Regression Analysis, 3rd ed., §6.1). Robust fits change the weights between models, so compare
+ * Regression Analysis, 3rd ed., §6.1; sections from memory). Robust fits change the weights between models, so compare
  * non-robust fits or fits with the same final weights.
  */
 export function nestedFTest(reduced: FitSummary, full: FitSummary): NestedFTest {

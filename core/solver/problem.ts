@@ -74,7 +74,7 @@ export class SolveCancelled extends Error {
 
 /** Huber IRLS settings; see huber-weights.ts for the estimator. */
 export interface RobustOptions {
-  /** Huber constant in units of the robust scale; 1.345 gives 95 % efficiency at the normal law (Huber 1981, §4.6). */
+  /** Huber constant in units of the robust scale; 1.345 gives 95 % efficiency at the normal law (Huber 1981; see DEFAULT_HUBER_TUNING). */
   readonly tuning?: number;
   /** Standardised residual above which an observation is flagged as an outlier (default 3). */
   readonly outlierThreshold?: number;

@@ -63,7 +63,7 @@ function transpose(a: Float64Array, r: number, c: number): Float64Array {
  * 3. global-only constraints C·g = d: M = S + CᵀC with rows scaled to unit norm in the
  *    unit-diagonal metric, g = M⁻¹h + M⁻¹Cᵀ·T⁻¹(d − CM⁻¹h), Q = M⁻¹ − M⁻¹CᵀT⁻¹CM⁻¹ with
  *    T = CM⁻¹Cᵀ (adding CᵀC leaves the constrained solution unchanged; e.g. Koch, Parameter
- *    Estimation and Hypothesis Testing in Linear Models, 2nd ed., 1999, §3.5);
+ *    Estimation and Hypothesis Testing in Linear Models, 2nd ed., 1999, §3.5, section from memory);
  * 4. M⁻¹ by Cholesky, falling back to an eigen-decomposition generalised inverse when M is
  *    singular to working precision; each such direction is returned, never hidden.
  */

@@ -2,7 +2,7 @@
  * Eigen-decomposition of a real symmetric n×n matrix (row-major Float64Array, not modified):
  * Householder reduction to tridiagonal form followed by the implicit QL iteration with
  * Wilkinson-type shifts (Wilkinson & Reinsch, Handbook for Automatic Computation II, 1971,
- * procedures tred2/tql2; Press et al., Numerical Recipes, 3rd ed., §11.3–11.4).
+ * procedures tred2/tql2; Press et al., Numerical Recipes, 3rd ed., §11.3–11.4; sections from memory).
  * Accuracy: eigenvalues to about n·ε·‖A‖ absolute, eigenvectors orthonormal to ~n·ε.
  * Cost about 9n³ flops (tridiagonalisation with vectors ~ 4n³/3 + 2n³, QL ~ 6n³ at most).
  *
