@@ -141,6 +141,7 @@ function iterate(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, robu
  * first drags that block's local terms, but the two good rows come back to full weight within a
  * few passes as the blunder's weight falls (tested in unit/solver/huber.test.ts).
  *
+ * Priors and constraints are not reweighted; rows with input weight 0 get residuals but no say.
  * Throws SolveCancelled when `options.cancel.cancelled` becomes true (checked every 256 blocks).
  */
 export function jointSolve(problem: SolverProblem, options: SolveOptions = {}): JointSolution {

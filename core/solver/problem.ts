@@ -63,7 +63,13 @@ export interface SolveProgress {
   readonly fraction: number;
 }
 
-/** Set `cancelled` from outside (e.g. a worker's message handler); the solve then throws SolveCancelled. */
+/**
+ * Read by the solve every 256 blocks and at each phase; when true it throws SolveCancelled.
+ * The solve is synchronous and never yields to its thread's event loop, so in a Web Worker a
+ * message handler cannot flip a plain flag mid-solve: back the token with shared memory, e.g.
+ * `const flag = new Int32Array(new SharedArrayBuffer(4)); token = { get cancelled() { return Atomics.load(flag, 0) === 1; } }`
+ * and have the UI thread `Atomics.store(flag, 0, 1)` (needs a cross-origin-isolated page).
+ */
 export interface CancellationToken {
   readonly cancelled: boolean;
 }
