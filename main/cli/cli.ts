@@ -1,15 +1,7 @@
-import { readFileSync } from 'node:fs';
 import { type CliIo, EXIT_FAILED, EXIT_OK, EXIT_USAGE, UsageError } from './command.ts';
 import { COMMANDS } from './commands/index.ts';
+import { packageVersion } from './package-version.ts';
 
-function packageVersion(): string {
-  const text = readFileSync(new URL('../../package.json', import.meta.url), 'utf8');
-  const parsed: unknown = JSON.parse(text);
-  if (typeof parsed === 'object' && parsed !== null && 'version' in parsed && typeof parsed.version === 'string') {
-    return parsed.version;
-  }
-  return 'unknown';
-}
 
 function helpText(): string {
   const width = Math.max(8, ...COMMANDS.map((c) => c.name.length));

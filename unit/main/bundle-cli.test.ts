@@ -64,3 +64,53 @@ describe('meridian-ledger bundle check', () => {
     expect(usage.status).toBe(2);
   });
 });
+
+function cli(args: string[]) {
+  const result = spawnSync(process.execPath, ['main/cli/bin.mjs', ...args], { encoding: 'utf8' });
+  return { code: result.status, stdout: result.stdout, stderr: result.stderr };
+}
+
+async function filesUnder(dir: string): Promise<Map<string, string>> {
+  const { readArchiveFolderFiles } = await import('../../main/archive/archive-folder-files.ts');
+  const files = await readArchiveFolderFiles(dir);
+  return new Map([...files].map(([name, bytes]) => [name, Buffer.from(bytes).toString('base64')]));
+}
+
+describe('meridian-ledger bundle pack / unpack', () => {
+  it('simulate → pack → check → unpack reproduces every file byte for byte', async () => {
+    const archive = path.join(folder, 'sim');
+    expect(cli(['simulate', '--seed', '3', '--years', '1', '--stars', '6', '--out', archive]).code).toBe(0);
+    const bundle = path.join(folder, 'sim.mlbundle');
+    const packed = cli(['bundle', 'pack', archive, '--out', bundle]);
+    expect(packed.code, packed.stderr).toBe(0);
+    const checked = JSON.parse(cli(['bundle', 'check', bundle, '--json']).stdout) as { tables: Record<string, number> };
+    expect(checked.tables.stars).toBe(6);
+    expect(checked.tables.transits).toBeGreaterThan(50);
+    const back = path.join(folder, 'sim-back');
+    expect(cli(['bundle', 'unpack', bundle, '--out', back]).code).toBe(0);
+    const [original, restored] = [await filesUnder(archive), await filesUnder(back)];
+    expect([...restored.keys()].sort()).toEqual([...original.keys()].sort());
+    for (const [name, content] of original) expect(restored.get(name), name).toBe(content);
+    // A second unpack into the now non-empty folder is refused without --force.
+    const again = cli(['bundle', 'unpack', bundle, '--out', back]);
+    expect(again.code).toBe(1);
+    expect(again.stderr).toMatch(/not empty/);
+  });
+  it('a folder with a bad row is not packed, and the row is named', async () => {
+    const archive = path.join(folder, 'sim-bad');
+    expect(cli(['simulate', '--seed', '4', '--years', '1', '--stars', '4', '--out', archive]).code).toBe(0);
+    const starsFile = path.join(archive, 'stars.csv');
+    const lines = (await readFile(starsFile, 'utf8')).split('\n');
+    const header = lines[0].split(',');
+    const decColumn = header.indexOf('decDeg');
+    const cells = lines[2].split(',');
+    cells[decColumn] = '95.5';
+    lines[2] = cells.join(',');
+    await writeFile(starsFile, lines.join('\n'));
+    const bundle = path.join(folder, 'bad.mlbundle');
+    const result = cli(['bundle', 'pack', archive, '--out', bundle]);
+    expect(result.code).toBe(1);
+    expect(result.stderr).toMatch(/stars\.csv: row 2 \(line 3\), column decDeg/);
+    await expect(readFile(bundle)).rejects.toThrow();
+  });
+});
