@@ -38,38 +38,60 @@ export function accumulateBlock(
     const w = weight[k];
     if (w === 0) continue;
     const r = effectiveResidual[k];
+    // The row's free terms, compacted once: touched positions / local indices and partials.
     const g0 = rows.globalStart[k];
-    const g1 = rows.globalStart[k + 1];
     const l0 = rows.localStart[k];
-    const l1 = rows.localStart[k + 1];
-    for (let p = l0; p < l1; p++) {
+    ensureRowScratch(rows.globalStart[k + 1] - g0, rows.localStart[k + 1] - l0);
+    let gn = 0;
+    for (let p = g0; p < rows.globalStart[k + 1]; p++) {
+      const g = rows.globalIndex[p];
+      if (globalFixed[g]) continue;
+      rowPosition[gn] = ws.position[g];
+      rowGlobalPartial[gn++] = rows.globalPartial[p];
+    }
+    let ln = 0;
+    for (let p = l0; p < rows.localStart[k + 1]; p++) {
       const li = rows.localIndex[p];
       if (localFixed[localBase + li]) continue;
-      const wa = w * rows.localPartial[p];
+      rowLocal[ln] = li;
+      rowLocalPartial[ln++] = rows.localPartial[p];
+    }
+    for (let p = 0; p < ln; p++) {
+      const li = rowLocal[p];
+      const wa = w * rowLocalPartial[p];
       bl[li] += wa * r;
-      for (let q = l0; q < l1; q++) {
-        const lj = rows.localIndex[q];
-        if (!localFixed[localBase + lj]) A[li * l + lj] += wa * rows.localPartial[q];
-      }
-      for (let q = g0; q < g1; q++) {
-        const g = rows.globalIndex[q];
-        if (!globalFixed[g]) Nlt[li * t + ws.position[g]] += wa * rows.globalPartial[q];
-      }
+      const rowA = li * l;
+      for (let q = 0; q < ln; q++) A[rowA + rowLocal[q]] += wa * rowLocalPartial[q];
+      const rowN = li * t;
+      for (let q = 0; q < gn; q++) Nlt[rowN + rowPosition[q]] += wa * rowGlobalPartial[q];
     }
     if (!withTouched) continue;
-    for (let p = g0; p < g1; p++) {
-      const gi = rows.globalIndex[p];
-      if (globalFixed[gi]) continue;
-      const wa = w * rows.globalPartial[p];
-      const ti = ws.position[gi];
+    for (let p = 0; p < gn; p++) {
+      const ti = rowPosition[p];
+      const wa = w * rowGlobalPartial[p];
       bt[ti] += wa * r;
-      for (let q = g0; q < g1; q++) {
-        const gj = rows.globalIndex[q];
-        if (!globalFixed[gj]) Ntt[ti * t + ws.position[gj]] += wa * rows.globalPartial[q];
-      }
+      const rowT = ti * t;
+      for (let q = 0; q < gn; q++) Ntt[rowT + rowPosition[q]] += wa * rowGlobalPartial[q];
     }
   }
   finishBlock(prep, block, l, localBase, ws);
+}
+
+let rowPosition = new Int32Array(32);
+let rowGlobalPartial = new Float64Array(32);
+let rowLocal = new Int32Array(32);
+let rowLocalPartial = new Float64Array(32);
+
+/** Grows the per-row scratch (module level: the solve is single-threaded and not re-entrant). */
+function ensureRowScratch(globalTerms: number, localTerms: number): void {
+  if (rowPosition.length < globalTerms) {
+    rowPosition = new Int32Array(globalTerms * 2);
+    rowGlobalPartial = new Float64Array(globalTerms * 2);
+  }
+  if (rowLocal.length < localTerms) {
+    rowLocal = new Int32Array(localTerms * 2);
+    rowLocalPartial = new Float64Array(localTerms * 2);
+  }
 }
 
 /** Lists the free globals the block's rows touch, in order of first appearance; returns their count. */
