@@ -1,5 +1,5 @@
 import { CONSTANT_OF_ABERRATION_RAD, LIGHT_TIME_AU_DAYS, SCHWARZSCHILD_RADIUS_SUN_AU, SPEED_OF_LIGHT_AU_PER_DAY } from './constants.ts';
-import * as F from './instant-frame.ts';
+import { F_BETA, F_COS_LAT, F_DAYS, F_EARTH_BETA, F_INVERSE_GAMMA, F_MATRIX, F_OBSERVER, F_SIN_LAT, F_SUN_DISTANCE, F_SUN_UNIT } from './instant-frame.ts';
 import { STAR_STRIDE } from './prepared-stars.ts';
 import { applyRefraction, refractionScratch } from './refraction-jacobian.ts';
 
@@ -34,16 +34,16 @@ const scratch = refractionScratch();
  */
 export function reduceStar(frame: Float64Array, stars: Float64Array, starIndex: number, out: Float64Array, offset: number): void {
   const s = starIndex * STAR_STRIDE;
-  const bx = frame[F.F_OBSERVER], by = frame[F.F_OBSERVER + 1], bz = frame[F.F_OBSERVER + 2];
+  const bx = frame[F_OBSERVER], by = frame[F_OBSERVER + 1], bz = frame[F_OBSERVER + 2];
   const rx = stars[s], ry = stars[s + 1], rz = stars[s + 2];
   const ux = stars[s + 3], uy = stars[s + 4], uz = stars[s + 5];
   const distance = stars[s + 6];
   let px: number, py: number, pz: number;
   if (distance === Infinity) {
-    const elapsed = frame[F.F_DAYS] + (rx * bx + ry * by + rz * bz) * LIGHT_TIME_AU_DAYS - stars[s + 7];
+    const elapsed = frame[F_DAYS] + (rx * bx + ry * by + rz * bz) * LIGHT_TIME_AU_DAYS - stars[s + 7];
     px = rx + ux * elapsed; py = ry + uy * elapsed; pz = rz + uz * elapsed;
   } else {
-    const elapsed = frame[F.F_DAYS] + ((rx * bx + ry * by + rz * bz) / distance) * LIGHT_TIME_AU_DAYS - stars[s + 7];
+    const elapsed = frame[F_DAYS] + ((rx * bx + ry * by + rz * bz) / distance) * LIGHT_TIME_AU_DAYS - stars[s + 7];
     // Emission interval of the straight-line motion with light-time, as in space-motion.ts.
     const light = C * elapsed;
     const half = (light + distance) * C + (rx * ux + ry * uy + rz * uz);
@@ -57,14 +57,14 @@ export function reduceStar(frame: Float64Array, stars: Float64Array, starIndex: 
   const bDotP = bx * px + by * py + bz * pz;
   const qx0 = -(bx - bDotP * px), qy0 = -(by - bDotP * py), qz0 = -(bz - bDotP * pz);
   // Solar deflection (light-deflection.ts).
-  const ex = frame[F.F_SUN_UNIT], ey = frame[F.F_SUN_UNIT + 1], ez = frame[F.F_SUN_UNIT + 2];
-  const em = frame[F.F_SUN_DISTANCE];
+  const ex = frame[F_SUN_UNIT], ey = frame[F_SUN_UNIT + 1], ez = frame[F_SUN_UNIT + 2];
+  const em = frame[F_SUN_DISTANCE];
   const pDotE = px * ex + py * ey + pz * ez;
   const w = SCHWARZSCHILD_RADIUS_SUN_AU / em / Math.max(1 + pDotE, 1e-6 / Math.max(em * em, 1));
   const dx = px + w * (ex - pDotE * px), dy = py + w * (ey - pDotE * py), dz = pz + w * (ez - pDotE * pz);
   // Aberration (aberration.ts) and its derivatives with respect to the direction and to κ.
-  const betaX = frame[F.F_BETA], betaY = frame[F.F_BETA + 1], betaZ = frame[F.F_BETA + 2];
-  const g = frame[F.F_INVERSE_GAMMA];
+  const betaX = frame[F_BETA], betaY = frame[F_BETA + 1], betaZ = frame[F_BETA + 2];
+  const g = frame[F_INVERSE_GAMMA];
   const onePlusG = 1 + g;
   const uDotBeta = dx * betaX + dy * betaY + dz * betaZ;
   const wa = 1 + uDotBeta / onePlusG;
@@ -76,14 +76,14 @@ export function reduceStar(frame: Float64Array, stars: Float64Array, starIndex: 
   let radial = ax * fx + ay * fy + az * fz;
   const pax = (fx - radial * ax) * inverse, pay = (fy - radial * ay) * inverse, paz = (fz - radial * az) * inverse;
   const scale = 1 / CONSTANT_OF_ABERRATION_RAD;
-  const vx = frame[F.F_EARTH_BETA] * scale, vy = frame[F.F_EARTH_BETA + 1] * scale, vz = frame[F.F_EARTH_BETA + 2] * scale;
+  const vx = frame[F_EARTH_BETA] * scale, vy = frame[F_EARTH_BETA + 1] * scale, vz = frame[F_EARTH_BETA + 2] * scale;
   const dg = -(betaX * vx + betaY * vy + betaZ * vz) / g;
   const dw = (dx * vx + dy * vy + dz * vz) / onePlusG - (uDotBeta * dg) / (onePlusG * onePlusG);
   fx = dx * dg + dw * betaX + wa * vx; fy = dy * dg + dw * betaY + wa * vy; fz = dz * dg + dw * betaZ + wa * vz;
   radial = ax * fx + ay * fy + az * fz;
   const kx = (fx - radial * ax) * inverse, ky = (fy - radial * ay) * inverse, kz = (fz - radial * az) * inverse;
   // Rotation to the hour-angle frame.
-  const m = F.F_MATRIX;
+  const m = F_MATRIX;
   const lx = frame[m] * ax + frame[m + 1] * ay + frame[m + 2] * az;
   const ly = frame[m + 3] * ax + frame[m + 4] * ay + frame[m + 5] * az;
   const lz = frame[m + 6] * ax + frame[m + 7] * ay + frame[m + 8] * az;
@@ -96,7 +96,7 @@ export function reduceStar(frame: Float64Array, stars: Float64Array, starIndex: 
   t[7] = frame[m + 3] * kx + frame[m + 4] * ky + frame[m + 5] * kz;
   t[8] = frame[m + 6] * kx + frame[m + 7] * ky + frame[m + 8] * kz;
   applyRefraction(frame, t);
-  writeAngles(t, frame[F.F_COS_LAT], frame[F.F_SIN_LAT], out, offset);
+  writeAngles(t, frame[F_COS_LAT], frame[F_SIN_LAT], out, offset);
 }
 
 /** Hour angle, declination, zenith distance of t[0..2] and the partials of the tangents t[3..8]. */

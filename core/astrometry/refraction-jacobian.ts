@@ -1,4 +1,4 @@
-import * as F from './instant-frame.ts';
+import { F_COS_LAT, F_HAS_REFRACTION, F_REFRACTION_A, F_REFRACTION_B, F_SIN_LAT } from './instant-frame.ts';
 
 /** Scratch for `applyRefraction`: a direction (0–2) and two tangent vectors (3–5, 6–8). */
 export function refractionScratch(): Float64Array {
@@ -18,9 +18,9 @@ const HORIZON_COS = Math.cos((89.5 * Math.PI) / 180);
  * are scaled by 1/(1 + A), the limit of the map there.
  */
 export function applyRefraction(frame: Float64Array, t: Float64Array): void {
-  if (frame[F.F_HAS_REFRACTION] === 0) return;
-  const a = frame[F.F_REFRACTION_A], b = frame[F.F_REFRACTION_B];
-  const cosLat = frame[F.F_COS_LAT], sinLat = frame[F.F_SIN_LAT];
+  if (frame[F_HAS_REFRACTION] === 0) return;
+  const a = frame[F_REFRACTION_A], b = frame[F_REFRACTION_B];
+  const cosLat = frame[F_COS_LAT], sinLat = frame[F_SIN_LAT];
   const x = t[0], y = t[1], z = t[2];
   const cosZ = x * cosLat + z * sinLat;
   if (cosZ < HORIZON_COS) return;
