@@ -6,6 +6,9 @@ import {
   refractionWarning,
   trueFromObservedZenith,
 } from '../../core/astrometry/refraction.ts';
+import { observedPlace } from '../../core/astrometry/observed-place.ts';
+import { placeContext } from '../../core/astrometry/place-context.ts';
+import { starMotion } from '../../core/astrometry/space-motion.ts';
 import { ARCSEC, DEG, UAS } from '../../core/units.ts';
 import { loadErfaPlaceFixture } from './erfa-place-fixture.ts';
 
@@ -68,5 +71,21 @@ describe('observedFromTrueZenith / trueFromObservedZenith', () => {
     expect(refractionWarning(70 * DEG)).toBeUndefined();
     expect(refractionWarning(78 * DEG)).toMatch(/78\.00° exceeds 75°/);
     expect(() => observedFromTrueZenith(90 * DEG, constants)).toThrow(/0–89\.5°/);
+  });
+});
+
+describe('observedPlace refraction warnings', () => {
+  it('warns beyond 75° and at the horizon (no refraction applied there), and not high in the sky', () => {
+    const identity = [1, 0, 0, 0, 1, 0, 0, 0, 1] as const;
+    // GCRS = the hour-angle frame (identity orientation, Greenwich site); Earth at rest far away.
+    const earth = { barycentricPositionAu: [1, 0, 0] as const, barycentricVelocityAuPerDay: [0, 0, 0] as const, heliocentricPositionAu: [1, 0, 0] as const };
+    const context = placeContext(0, earth, { npb: identity, gastRad: 0, polarMotion: identity }, { latitudeRad: 0, longitudeRad: 0, heightM: 0 }, standard);
+    const place = (decDeg: number) => observedPlace(context, starMotion({ raRad: 0, decRad: decDeg * DEG, pmRaCosDecMasYr: 0, pmDecMasYr: 0, parallaxMas: 0, radialVelocityKmS: 0, epochJulianYear: 2000 }));
+    expect(place(30).warnings).toEqual([]);
+    expect(place(30).observedZenithRad).toBeLessThan(place(30).topocentricZenithRad);
+    expect(place(80).warnings.join()).toMatch(/exceeds 75°/);
+    const below = place(-89.9);
+    expect(below.warnings.join()).toMatch(/below the horizon: no refraction applied/);
+    expect(below.observedZenithRad).toBe(below.topocentricZenithRad);
   });
 });
