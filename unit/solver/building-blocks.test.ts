@@ -113,4 +113,21 @@ describe('ObservationRowsBuilder and problem checks', () => {
     expect(() => jointSolve({ ...good, priors: [{ parameter: { kind: 'global', index: 0 }, value: 0, sigma: 0 }] })).toThrow(/priors\[0\]: sigma is 0/);
     expect(() => jointSolve({ ...good, fixed: [{ parameter: { kind: 'local', block: 1, index: 0 }, value: 0 }] })).toThrow(/fixed\[0\]: block 1 is outside 0…0/);
   });
+
+  it('solves a problem with locals only (no globals): each block on its own, like a per-night fit', () => {
+    // Two nights, each y = clock + rate·t exactly; solution must be exact and finite.
+    const builder = new ObservationRowsBuilder();
+    for (const [block, clock, rate] of [[0, 1.5, -0.2], [1, -3, 0.7]] as const) {
+      for (let i = 0; i < 5; i++) {
+        builder.beginRow(block, clock + rate * i, 1);
+        builder.addLocal(0, 1);
+        builder.addLocal(1, i);
+      }
+    }
+    const solution = jointSolve({ globalNames: [], blockLocalCount: Int32Array.of(2, 2), rows: builder.finish() });
+    [1.5, -0.2, -3, 0.7].forEach((x, i) => expect(Math.abs(solution.localEstimate[i] - x)).toBeLessThan(1e-12));
+    expect(solution.degeneracy!.eigenvalues).toHaveLength(0);
+    expect(solution.degreesOfFreedom).toBe(6);
+    expect(solution.localError.every(Number.isFinite)).toBe(true);
+  });
 });
