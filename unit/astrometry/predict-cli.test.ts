@@ -62,4 +62,10 @@ describe('meridian-ledger predict (spawned)', () => {
     expect(result.lines[3]).toEqual({ error: expect.stringMatching(/culmination must be "upper" or "lower"/), line: 5 });
     expect(result.lines[4].transitUtc).toBe(result.lines[0].transitUtc);
   });
+
+  it('refuses a right ascension outside [0, 360) degrees rather than wrapping it', () => {
+    const result = runPredict('{"star":{"raDeg":400,"decDeg":5},"site":{"latDeg":1,"lonDeg":2},"afterUtc":"2025-01-01T00:00:00Z"}\n');
+    expect(result.status).toBe(1);
+    expect(result.lines[0]).toEqual({ error: expect.stringMatching(/star\.raDeg must lie in \[0, 360\) degrees \(got 400\)/), line: 1 });
+  });
 });

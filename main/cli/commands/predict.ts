@@ -67,9 +67,11 @@ function parseStar(value: unknown): CatalogueStar {
   }
   const decDeg = number(s, 'decDeg', 'star');
   if (Math.abs(decDeg) > 90) throw new RequestError(`star.decDeg must lie within ±90° (got ${decDeg})`);
+  const raDeg = number(s, 'raDeg', 'star');
+  if (raDeg < 0 || raDeg >= 360) throw new RequestError(`star.raDeg must lie in [0, 360) degrees (got ${raDeg}); hours? multiply by 15`);
   const star: CatalogueStar = {
-    raRad: number(s, 'raDeg', 'star') * DEG,
-    decRad: number(s, 'decDeg', 'star') * DEG,
+    raRad: raDeg * DEG,
+    decRad: decDeg * DEG,
     pmRaCosDecMasYr: pmRa,
     pmDecMasYr: pmDec,
     parallaxMas: number(s, 'parallaxMas', 'star', 0),
