@@ -41,6 +41,11 @@ export function runEarthBench(): EarthBenchResult[] {
   ];
 }
 
+/** The `npm run bench` entry: prints the median per-call time of each Earth-orientation routine. */
+export async function run(): Promise<void> {
+  for (const result of runEarthBench()) console.log(`   ${result.name.padEnd(50)} ${result.medianMicroseconds.toFixed(2)} µs per call (median)`);
+}
+
 if (process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].split('/').pop() ?? '')) {
-  for (const result of runEarthBench()) console.log(`${result.name.padEnd(50)} ${result.medianMicroseconds.toFixed(2)} µs`);
+  await run();
 }
