@@ -5,6 +5,7 @@ import App from './App.svelte';
 import { ViewRouter } from './navigation/router.svelte.ts';
 import { ThemeState } from './theme/themeState.svelte.ts';
 import { ArchiveState } from './app/archiveState.svelte.ts';
+import { fetchBundledDemo } from './demo/demoArchive.ts';
 import { ComputeClient } from './worker/computeClient.ts';
 import { selectBridge } from './bridge/selectBridge.ts';
 
@@ -25,7 +26,9 @@ const themeState = new ThemeState({
 });
 const router = new ViewRouter(window);
 const archive = new ArchiveState();
-void archive.start(navigator.storage);
+// `?no-demo` opens an empty archive without the demo (tests, and users who want to start blank).
+const loadDemo = !new URLSearchParams(window.location.search).has('no-demo');
+void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined);
 const worker = new Worker(new URL('./worker/compute.worker.ts', import.meta.url), { type: 'module' });
 const compute = new ComputeClient(worker);
 const bridge = selectBridge(window, __APP_VERSION__);

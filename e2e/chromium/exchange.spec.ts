@@ -2,7 +2,7 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type Page } from '@playwright/test';
-import { expect, openApp, test } from './fixtures.ts';
+import { expect, openApp, test, withoutDemo } from './fixtures.ts';
 import { findNonRedColours } from './nightColours.ts';
 import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE, WEB_PORT } from '../../playwright.config.ts';
 
@@ -86,7 +86,7 @@ for (const chunksBeforeKill of [1, 4, 6]) {
       await first.close();
       const second = await launch();
       const again = second.pages()[0] ?? (await second.newPage());
-      await again.goto(`${base}#/exchange`);
+      await again.goto(withoutDemo(`${base}#/exchange`));
       const counts = again.getByTestId('archive-counts');
       await expect(counts).toContainText('2 stars');
       const text = (await counts.textContent()) ?? '';

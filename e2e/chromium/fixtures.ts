@@ -20,9 +20,19 @@ export { expect };
 
 export const VIEW_LABELS = ['Tonight', 'Archive', 'Solve', 'Signatures', 'Exchange'] as const;
 
-/** Loads the app and waits until the archive is open and a view is showing. */
+/**
+ * The address with `no-demo` added to its query, so the app opens an empty archive instead of
+ * restoring the demo on first start (the demo's own spec opens without it).
+ */
+export function withoutDemo(path: string): string {
+  const [beforeHash, hash = ''] = path.split('#');
+  const joined = beforeHash.includes('?') ? `${beforeHash}&no-demo` : `${beforeHash}?no-demo`;
+  return hash === '' && !path.includes('#') ? joined : `${joined}#${hash}`;
+}
+
+/** Loads the app on an empty archive and waits until it is open and a view is showing. */
 export async function openApp(page: Page, path = './'): Promise<void> {
-  await page.goto(path);
+  await page.goto(withoutDemo(path));
   await expect(page.getByRole('tabpanel')).toBeVisible();
   await expect(page.getByText('Opening the archive…')).toHaveCount(0);
 }

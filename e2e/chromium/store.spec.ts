@@ -2,7 +2,7 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type Page } from '@playwright/test';
-import { expect, openApp, test } from './fixtures.ts';
+import { expect, openApp, test, withoutDemo } from './fixtures.ts';
 import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE, WEB_PORT } from '../../playwright.config.ts';
 
 // An invented site for the demo scenario.
@@ -55,13 +55,13 @@ test('a site survives closing and relaunching Chromium on the same profile', asy
   try {
     const first = await launch();
     const page = first.pages()[0] ?? (await first.newPage());
-    await page.goto(url);
+    await page.goto(withoutDemo(url));
     await addSite(page);
     await first.close();
 
     const second = await launch();
     const again = second.pages()[0] ?? (await second.newPage());
-    await again.goto(url);
+    await again.goto(withoutDemo(url));
     await expect(siteRow(again)).toContainText('47.123456');
     await second.close();
   } finally {
@@ -89,7 +89,7 @@ test('an archive written by a newer version is refused with advice, and its data
       request.onerror = () => reject(request.error);
     });
   });
-  await page.goto('./#/archive');
+  await page.goto(withoutDemo('./#/archive'));
   const banner = page.getByTestId('archive-failure');
   await expect(banner).toContainText('This archive was written by a newer version of Meridian Ledger');
   await expect(banner).toContainText('schema version 3');

@@ -3,6 +3,7 @@ import type { ArchiveOpenFailure } from '../store/describeOpenFailure.ts';
 import { openArchive } from '../store/openArchive.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
 import { sweepInterruptedImports } from '../store/importStaging.ts';
+import { loadDemoIfFirstStart } from '../demo/demoArchive.ts';
 import { requestStorageStatus, type StorageManagerLike, type StorageStatus } from '../store/storageStatus.ts';
 
 /** The archive as the whole app sees it: opening, open, or failed with the reason. */
@@ -13,13 +14,25 @@ export class ArchiveState {
   storage = $state.raw<StorageStatus | null>(null);
   /** Imports interrupted in an earlier session whose staged rows were removed at start. */
   sweptImports = $state(0);
+  /** Why the demo archive could not be loaded on first start, if it could not. */
+  demoFailure = $state('');
 
-  /** Opens the archive, sweeps interrupted imports, then asks for persistent storage. */
-  async start(storage: StorageManagerLike | undefined, databaseName?: string): Promise<void> {
+  /**
+   * Opens the archive, sweeps interrupted imports, restores the demo archive on the very first
+   * start of an empty archive (when `fetchDemo` is given), then asks for persistent storage.
+   */
+  async start(storage: StorageManagerLike | undefined, databaseName?: string, fetchDemo?: () => Promise<Uint8Array>): Promise<void> {
     const result = await openArchive(databaseName);
     if (result.kind === 'open') {
-      this.database = result.database;
       this.sweptImports = await sweepInterruptedImports(result.database, nowUtcIso());
+      if (fetchDemo !== undefined) {
+        try {
+          await loadDemoIfFirstStart(result.database, fetchDemo, nowUtcIso());
+        } catch (error) {
+          this.demoFailure = `The demo archive could not be loaded (${error instanceof Error ? error.message : String(error)}); the archive is empty and works as usual.`;
+        }
+      }
+      this.database = result.database;
     } else {
       this.failure = result.failure;
     }

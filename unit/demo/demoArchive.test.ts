@@ -1,0 +1,42 @@
+// The demo archive shipped in assets/demo: restored on the first start of an empty archive only,
+// removable in one action, never restored again by itself.
+import { readFile } from 'node:fs/promises';
+import { describe, expect, it } from 'vitest';
+import { DEMO_IMPORT_ID, demoState, loadDemoIfFirstStart, removeDemoArchive } from '../../renderer/demo/demoArchive.ts';
+import { ArchiveDatabase } from '../../renderer/store/database.ts';
+import { siteRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+
+const fetchDemo = async () => new Uint8Array(await readFile('assets/demo/demo-archive.mlbundle'));
+const NOW = '2026-12-01T12:00:00.000Z';
+
+describe('loadDemoIfFirstStart(database, fetchDemo)', () => {
+  it('restores the whole demo into an empty archive, marked with the demo import id', async () => {
+    const database = new ArchiveDatabase(uniqueDatabaseName('demo-load'));
+    const counts = await loadDemoIfFirstStart(database, fetchDemo, NOW);
+    expect(counts).toMatchObject({ sites: 1, instruments: 1, stars: 24 });
+    expect(counts?.transits).toBeGreaterThan(5000);
+    expect(await database.transits.where('importId').notEqual(DEMO_IMPORT_ID).count()).toBe(0);
+    expect((await database.stars.toArray()).every((s) => s.visibility === 'visible')).toBe(true);
+    expect(await demoState(database)).toEqual({ state: 'loaded', whenUtc: NOW });
+    // A second start does nothing.
+    expect(await loadDemoIfFirstStart(database, fetchDemo, NOW)).toBeNull();
+  });
+  it('skips an archive that already holds data and remembers that', async () => {
+    const database = new ArchiveDatabase(uniqueDatabaseName('demo-skip'));
+    await database.sites.put(siteRow('mine'));
+    expect(await loadDemoIfFirstStart(database, fetchDemo, NOW)).toBeNull();
+    expect(await database.stars.count()).toBe(0);
+    expect((await demoState(database))?.state).toBe('skipped');
+  });
+  it('removeDemoArchive removes every demo row and leaves the user own rows', async () => {
+    const database = new ArchiveDatabase(uniqueDatabaseName('demo-remove'));
+    await loadDemoIfFirstStart(database, fetchDemo, NOW);
+    await database.sites.put(siteRow('mine'));
+    const removed = await removeDemoArchive(database, NOW);
+    expect(removed).toBeGreaterThan(5000);
+    expect(await database.transits.count()).toBe(0);
+    expect(await database.stars.count()).toBe(0);
+    expect((await database.sites.toArray()).map((s) => s.id)).toEqual(['mine']);
+    expect((await demoState(database))?.state).toBe('removed');
+  });
+});
