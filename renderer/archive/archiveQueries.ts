@@ -1,0 +1,86 @@
+import { Dexie } from 'dexie';
+import type {
+  InstrumentEventRecord, InstrumentRecord, NightRecord, StarRecord, TransitRecord,
+} from '../../core/archive/records.ts';
+import type { ArchiveDatabase } from '../store/database.ts';
+
+/** A night for the overview: its record and how many transits it holds. */
+export interface NightSummary {
+  readonly night: NightRecord;
+  readonly transitCount: number;
+}
+
+/**
+ * Every visible night in date order with its transit count. The counts come from one pass over
+ * the `nightId` index keys (no transit record is read), so the overview stays cheap on archives
+ * of hundreds of thousands of transits. Staged rows of an import still in progress are counted
+ * too (they exist only while an import runs).
+ */
+export async function loadNightSummaries(database: ArchiveDatabase): Promise<NightSummary[]> {
+  const [nights, nightIds] = await Promise.all([
+    database.nights.orderBy('localDate').toArray(),
+    database.transits.orderBy('nightId').keys(),
+  ]);
+  const counts = new Map<string, number>();
+  for (const key of nightIds) counts.set(String(key), (counts.get(String(key)) ?? 0) + 1);
+  return nights
+    .filter((night) => night.visibility === 'visible')
+    .map((night) => ({ night, transitCount: counts.get(night.id) ?? 0 }));
+}
+
+/** One night with its transits (in time order) and the stars they refer to. */
+export interface NightDetail {
+  readonly night: NightRecord;
+  readonly transits: readonly TransitRecord[];
+  readonly stars: ReadonlyMap<string, StarRecord>;
+  readonly instrument: InstrumentRecord | null;
+}
+
+/** Reads one night through the `nightId` index; null if the night is not in the archive. */
+export async function loadNightDetail(database: ArchiveDatabase, nightId: string): Promise<NightDetail | null> {
+  const night = await database.nights.get(nightId);
+  if (night === undefined) return null;
+  const rows = await database.transits.where('nightId').equals(nightId).toArray();
+  const transits = rows.filter((row) => row.visibility === 'visible').sort((a, b) => a.utcMjd - b.utcMjd);
+  const starIds = [...new Set(transits.map((row) => row.starId))];
+  const stars = await database.stars.bulkGet(starIds);
+  const instrument = (await database.instruments.get(night.instrumentId)) ?? null;
+  return {
+    night, transits, instrument,
+    stars: new Map(stars.filter((star): star is StarRecord => star !== undefined).map((star) => [star.id, star])),
+  };
+}
+
+/** A programme star and the number of its transits in the archive. */
+export interface StarSummary {
+  readonly star: StarRecord;
+  readonly transitCount: number;
+}
+
+/** The visible stars by catalogue id, each counted through the `[starId+utcMjd]` index. */
+export async function loadStarProgramme(database: ArchiveDatabase): Promise<StarSummary[]> {
+  const stars = (await database.stars.orderBy('catalogueId').toArray()).filter((star) => star.visibility === 'visible');
+  const counts = await Promise.all(
+    stars.map((star) => database.transits.where('[starId+utcMjd]').between([star.id, Dexie.minKey], [star.id, Dexie.maxKey]).count()),
+  );
+  return stars.map((star, index) => ({ star, transitCount: counts[index] }));
+}
+
+/** An instrument with its events in time order. */
+export interface InstrumentSummary {
+  readonly instrument: InstrumentRecord;
+  readonly events: readonly InstrumentEventRecord[];
+}
+
+/** The visible instruments by label, with events read through `[instrumentId+utcMjd]`. */
+export async function loadInstruments(database: ArchiveDatabase): Promise<InstrumentSummary[]> {
+  const instruments = (await database.instruments.orderBy('label').toArray()).filter((row) => row.visibility === 'visible');
+  const events = await Promise.all(
+    instruments.map((row) =>
+      database.instrumentEvents.where('[instrumentId+utcMjd]').between([row.id, Dexie.minKey], [row.id, Dexie.maxKey]).toArray()),
+  );
+  return instruments.map((instrument, index) => ({
+    instrument,
+    events: events[index].filter((event) => event.visibility === 'visible'),
+  }));
+}

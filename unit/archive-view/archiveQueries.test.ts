@@ -1,0 +1,53 @@
+import { describe, expect, test } from 'vitest';
+import { ArchiveDatabase } from '../../renderer/store/database.ts';
+import { loadInstruments, loadNightDetail, loadNightSummaries, loadStarProgramme } from '../../renderer/archive/archiveQueries.ts';
+import { nightRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+
+// Invented rows; the checks count what was written.
+async function filled(): Promise<ArchiveDatabase> {
+  const database = new ArchiveDatabase(uniqueDatabaseName('queries'));
+  await database.nights.bulkAdd([nightRow('n-2', { localDate: '2026-01-03' }), nightRow('n-1', { localDate: '2026-01-02' }), nightRow('n-3', { localDate: '2026-01-04' })]);
+  await database.stars.bulkAdd([starRow('s-b', { catalogueId: 'B' }), starRow('s-a', { catalogueId: 'A' }), starRow('s-c', { catalogueId: 'C', visibility: 'staged' })]);
+  await database.transits.bulkAdd([
+    transitRow('t-1', { nightId: 'n-1', starId: 's-a', utcMjd: 61_002.9 }),
+    transitRow('t-2', { nightId: 'n-1', starId: 's-b', utcMjd: 61_002.8 }),
+    transitRow('t-3', { nightId: 'n-2', starId: 's-a', utcMjd: 61_003.9 }),
+  ]);
+  return database;
+}
+
+describe('archive queries', () => {
+  test('loadNightSummaries gives nights in date order with their transit counts', async () => {
+    const summaries = await loadNightSummaries(await filled());
+    expect(summaries.map((s) => [s.night.localDate, s.transitCount])).toEqual([['2026-01-02', 2], ['2026-01-03', 1], ['2026-01-04', 0]]);
+  });
+
+  test('loadNightDetail gives the transits of one night in time order and their stars', async () => {
+    const detail = await loadNightDetail(await filled(), 'n-1');
+    expect(detail?.transits.map((t) => t.id)).toEqual(['t-2', 't-1']);
+    expect([...(detail?.stars.keys() ?? [])].sort()).toEqual(['s-a', 's-b']);
+    expect(await loadNightDetail(await filled(), 'n-9')).toBeNull();
+  });
+
+  test('loadStarProgramme counts transits per visible star', async () => {
+    const programme = await loadStarProgramme(await filled());
+    expect(programme.map((s) => [s.star.catalogueId, s.transitCount])).toEqual([['A', 2], ['B', 1]]);
+  });
+
+  test('loadInstruments lists events in time order per instrument', async () => {
+    const database = await filled();
+    await database.instruments.add({
+      id: 'instr-1', label: 'Tube', kind: 'zenith-tube', siteId: 'site-1', readingUnit: 'pixel', readingScaleArcsecPerUnit: 0.5,
+      readingSense: 1, wireIntervalsEquatorialS: [], effectiveWavelengthNm: 600, clockLabel: 'pier clock', note: '',
+      visibility: 'visible', createdUtc: 'x', updatedUtc: 'x',
+    });
+    const stamp = { visibility: 'visible', createdUtc: 'x', updatedUtc: 'x', note: '' } as const;
+    await database.instrumentEvents.bulkAdd([
+      { id: 'e-2', instrumentId: 'instr-1', utcMjd: 61_005, kind: 'cleaning', ...stamp },
+      { id: 'e-1', instrumentId: 'instr-1', utcMjd: 61_001, kind: 'adjustment', ...stamp },
+      { id: 'e-3', instrumentId: 'other', utcMjd: 61_000, kind: 'adjustment', ...stamp },
+    ]);
+    const instruments = await loadInstruments(database);
+    expect(instruments.map((i) => i.events.map((e) => e.id))).toEqual([['e-1', 'e-2']]);
+  });
+});
