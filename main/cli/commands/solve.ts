@@ -1,0 +1,101 @@
+import { readFile, stat } from 'node:fs/promises';
+import { DEFAULT_JOINT_MODEL, parseJointModel, type JointModel } from '../../../core/joint/joint-model.ts';
+import { JointSolveRefused, solveArchive, type ArchiveSolveResult } from '../../../core/joint/solve-archive.ts';
+import { readSolveInputs } from '../../../core/joint/solve-inputs.ts';
+import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
+import { TimeScale } from '../../../core/time/timescale.ts';
+import { readArchiveFolderFiles } from '../../archive/archive-folder-files.ts';
+import { type CliIo, type Command, EXIT_FAILED, EXIT_OK, UsageError } from '../command.ts';
+
+const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json]
+
+Solves every star, global and per-night term of the archive folder DIR (as 'meridian-ledger
+simulate' writes it) at once: each night is first reduced (clock from its comparisons, b from its
+level readings), then parallaxes, proper motions, position corrections, Δκ, flexure and the
+per-night clock, a, b, c and zero points are fitted together (core/joint/SOLVE.md).
+
+  --model FILE   model file (JSON): which terms are free, fixed or absent, stated precisions,
+                 catalogue σ (SOLVE.md lists every key); default: the practitioner defaults
+  --json         print the result as JSON (absolute parallax and proper motion per star)
+Progress goes to stderr. Exit 1 for an unreadable archive or model file (every problem listed),
+2 for a usage error.`;
+
+function parseArguments(args: readonly string[]): { dir: string; modelFile: string | null; json: boolean } {
+  let dir: string | null = null, modelFile: string | null = null, json = false;
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i];
+    if (a === '--json') json = true;
+    else if (a === '--model') {
+      const v = args[++i];
+      if (v === undefined || v.startsWith('--')) throw new UsageError('--model needs a file name');
+      modelFile = v;
+    } else if (a.startsWith('--')) throw new UsageError(`unknown argument "${a}"`);
+    else if (dir === null) dir = a;
+    else throw new UsageError(`only one archive folder may be given (got "${dir}" and "${a}")`);
+  }
+  if (dir === null) throw new UsageError('the archive folder DIR is required');
+  return { dir, modelFile, json };
+}
+
+function toJson(r: ArchiveSolveResult): unknown {
+  return {
+    stars: r.stars, global: r.global, unitWeightError: r.unitWeightError, chiSquare: r.chiSquare, degreesOfFreedom: r.degreesOfFreedom,
+    degeneracies: r.degeneracies, notes: r.notes,
+    nights: r.nights.map((n) => ({ id: n.id, instrumentId: n.instrumentId, nightly: n.nightly })),
+  };
+}
+
+function fixed(v: number | null, digits: number): string {
+  return v === null ? '—' : v.toFixed(digits);
+}
+
+function textReport(r: ArchiveSolveResult): string {
+  const lines = [`joint solve: ${r.observations.length} transits, ${r.nights.length} nights, ${r.stars.length} stars; unit-weight error ${r.unitWeightError.toFixed(3)}, χ² ${r.chiSquare.toFixed(1)} on ${r.degreesOfFreedom} degrees of freedom`, ''];
+  lines.push('star           n  parallax mas      μα* mas/yr          μδ mas/yr');
+  for (const s of r.stars) {
+    lines.push(`${s.id.padEnd(12)}${String(s.observations).padStart(4)}  ${fixed(s.parallaxMas, 2).padStart(8)} ± ${fixed(s.parallaxSigmaMas, 2).padEnd(6)}  ${fixed(s.pmRaMasYr, 2).padStart(8)} ± ${fixed(s.pmRaSigmaMasYr, 2).padEnd(6)}  ${fixed(s.pmDecMasYr, 2).padStart(8)} ± ${fixed(s.pmDecSigmaMasYr, 2)}`);
+  }
+  lines.push('', `Δκ ${fixed(r.global.deltaKappaArcsec, 4)} ± ${fixed(r.global.deltaKappaSigmaArcsec, 4)}″   flexure ${fixed(r.global.flexureArcsec, 3)} ± ${fixed(r.global.flexureSigmaArcsec, 3)}″`);
+  if (r.degeneracies.length > 0) lines.push('', 'What the data cannot separate well:', ...r.degeneracies.map((d) => `  - ${d}`));
+  if (r.notes.length > 0) lines.push('', 'Notes:', ...r.notes.map((n) => `  - ${n}`));
+  return `${lines.join('\n')}\n`;
+}
+
+async function loadModel(file: string | null, io: CliIo): Promise<JointModel | null> {
+  if (file === null) return DEFAULT_JOINT_MODEL;
+  let text: string;
+  try { text = await readFile(file, 'utf8'); } catch (error) { io.stderr.write(`solve: cannot read the model file ${file}: ${(error as Error).message}\n`); return null; }
+  const { model, problems } = parseJointModel(text);
+  for (const p of problems) io.stderr.write(`solve: ${file}: ${p}\n`);
+  return model;
+}
+
+export const solveCommand: Command = {
+  name: 'solve',
+  summary: 'joint solve of an archive folder: parallaxes, proper motions, Δκ and per-night instrument terms at once',
+  usage: USAGE,
+  async run(args, io) {
+    const { dir, modelFile, json } = parseArguments(args);
+    const isDir = await stat(dir).then((s) => s.isDirectory(), () => false);
+    if (!isDir) { io.stderr.write(`solve: ${dir} is not a folder; give the archive folder 'meridian-ledger simulate --out' wrote\n`); return EXIT_FAILED; }
+    const model = await loadModel(modelFile, io);
+    if (model === null) return EXIT_FAILED;
+    const { inputs, problems } = readSolveInputs(await readArchiveFolderFiles(dir));
+    if (inputs === null) { for (const p of problems) io.stderr.write(`solve: ${p}\n`); return EXIT_FAILED; }
+    const started = performance.now();
+    let result: ArchiveSolveResult;
+    try {
+      result = await solveArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), {
+        cancellation: { isCancelled: false },
+        reportProgress: (done, total) => { if (done % 100 === 0 || done === total) io.stderr.write(`solve: nightly reduction ${done} of ${total} nights\n`); },
+        yieldToHost: () => Promise.resolve(),
+      }, (p) => { if (p.fraction === 1 && p.phase === 'solve') io.stderr.write(`solve: joint pass ${p.iteration} of at most ${p.iterationLimit}\n`); });
+    } catch (error) {
+      if (error instanceof JointSolveRefused) { io.stderr.write(`solve: ${error.message}\n`); return EXIT_FAILED; }
+      throw error;
+    }
+    io.stderr.write(`solve: done in ${((performance.now() - started) / 1000).toFixed(1)} s\n`);
+    io.stdout.write(json ? `${JSON.stringify(toJson(result), null, 2)}\n` : textReport(result));
+    return EXIT_OK;
+  },
+};
