@@ -1,0 +1,54 @@
+// `meridian-ledger solve` through the real bin (node main/cli/bin.mjs) on a folder the real
+// `meridian-ledger simulate` wrote: the JSON contract, the text report and the exit statuses.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+const run = (args: string[]) => spawnSync(process.execPath, ['main/cli/bin.mjs', ...args], { encoding: 'utf8', env: { ...process.env, TZ: 'UTC' } });
+let dir: string;
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'ml-solve-'));
+  const made = run(['simulate', '--out', join(dir, 'archive'), '--seed', '5', '--years', '2', '--stars', '8', '--blunder-rate', '0']);
+  expect(made.status, made.stderr).toBe(0);
+}, 60_000);
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('meridian-ledger solve', () => {
+  it('--json prints absolute parallax and proper motion per star, Δκ, the unit-weight error and the degeneracies', () => {
+    const result = run(['solve', join(dir, 'archive'), '--json']);
+    expect(result.status, result.stderr).toBe(0);
+    expect(result.stderr).toMatch(/nightly reduction/);
+    const out = JSON.parse(result.stdout);
+    expect(out.stars).toHaveLength(8);
+    for (const s of out.stars) {
+      for (const key of ['parallaxMas', 'parallaxSigmaMas', 'pmRaMasYr', 'pmRaSigmaMasYr', 'pmDecMasYr', 'pmDecSigmaMasYr']) expect(Number.isFinite(s[key]), `${s.id} ${key}`).toBe(true);
+      expect(s.parallaxSigmaMas).toBeGreaterThan(0);
+    }
+    expect(Number.isFinite(out.global.deltaKappaArcsec) && out.global.deltaKappaSigmaArcsec > 0).toBe(true);
+    expect(out.unitWeightError).toBeGreaterThan(0.5);
+    expect(Array.isArray(out.degeneracies)).toBe(true);
+  }, 60_000);
+
+  it('without --json prints a readable report with a line per star', () => {
+    const result = run(['solve', join(dir, 'archive')]);
+    expect(result.status, result.stderr).toBe(0);
+    expect(result.stdout).toMatch(/unit-weight error/);
+    expect(result.stdout).toMatch(/^ML-001 /m);
+  }, 60_000);
+
+  it('exits 2 on a usage error and 1 on a bad folder or model file, naming the problem', () => {
+    const usage = run(['solve']);
+    expect(usage.status).toBe(2);
+    expect(run(['solve', join(dir, 'archive'), '--bogus']).status).toBe(2);
+    const missing = run(['solve', join(dir, 'nowhere'), '--json']);
+    expect(missing.status).toBe(1);
+    expect(missing.stderr).toMatch(/is not a folder/);
+    writeFileSync(join(dir, 'model.json'), '{"parallax": "sometimes", "colour": 3}');
+    const badModel = run(['solve', join(dir, 'archive'), '--model', join(dir, 'model.json')]);
+    expect(badModel.status).toBe(1);
+    expect(badModel.stderr).toMatch(/"parallax" must be "free", "fixed" or "absent"/);
+    expect(badModel.stderr).toMatch(/unknown model key "colour"/);
+  }, 60_000);
+});
