@@ -2,6 +2,7 @@ import { TaskCancelledError, type TaskControl } from '../../core/task/task-contr
 import { parseToWorker, type FromWorker, type TaskKind, type TaskRequest, type TaskResult } from './protocol.ts';
 import { runEclipticField, type EclipticFieldRequest } from './tasks/eclipticField.ts';
 import { EXCHANGE_KINDS, runExchangeTask, type ExchangeRequest } from './tasks/exchangeTasks.ts';
+import { runTonightProgramme, type TonightProgrammeRequest } from './tasks/tonightProgramme.ts';
 
 /** Runs one request under a control; one entry per task kind. */
 export type TaskRunner = (request: TaskRequest, control: TaskControl) => Promise<TaskResult>;
@@ -9,6 +10,7 @@ export type TaskTable = Readonly<Record<TaskKind, TaskRunner>>;
 
 export const TASKS: TaskTable = {
   'ecliptic-field': (request, control) => runEclipticField(request as EclipticFieldRequest, control),
+  'tonight-programme': (request, control) => runTonightProgramme(request as TonightProgrammeRequest, control),
   ...(Object.fromEntries(EXCHANGE_KINDS.map((kind) => [kind, (request: TaskRequest, control: TaskControl) => runExchangeTask(request as ExchangeRequest, control)])) as Record<ExchangeRequest['kind'], TaskRunner>),
 };
 

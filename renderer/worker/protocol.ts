@@ -1,5 +1,6 @@
 import type { EclipticFieldRequest, EclipticFieldResult } from './tasks/eclipticField.ts';
 import { isExchangeKind, type ExchangeRequest, type ExchangeResult } from './tasks/exchangeTasks.ts';
+import type { TonightProgrammeRequest, TonightProgrammeResult } from './tasks/tonightProgramme.ts';
 
 /**
  * The messages between the renderer and the compute worker. Hand-written discriminated unions:
@@ -7,8 +8,8 @@ import { isExchangeKind, type ExchangeRequest, type ExchangeResult } from './tas
  */
 
 /** What a job computes; one member per task the worker knows. */
-export type TaskRequest = EclipticFieldRequest | ExchangeRequest;
-export type TaskResult = EclipticFieldResult | ExchangeResult;
+export type TaskRequest = EclipticFieldRequest | ExchangeRequest | TonightProgrammeRequest;
+export type TaskResult = EclipticFieldResult | ExchangeResult | TonightProgrammeResult;
 export type TaskKind = TaskRequest['kind'];
 
 export type ToWorker =
@@ -48,6 +49,10 @@ export function parseToWorker(message: unknown): ToWorker | string {
       jobId: message.jobId,
       request: { kind: 'ecliptic-field', starCount: Number(request.starCount), seed: Number(request.seed) },
     };
+  }
+  if (request.kind === 'tonight-programme') {
+    // The task checks the window; the star and site fields are checked by core as it reads them.
+    return { type: 'start', jobId: message.jobId, request: request as unknown as TonightProgrammeRequest };
   }
   if (isExchangeKind(request.kind) && typeof request.databaseName === 'string') {
     // Structured clone keeps the shape; each Exchange task checks its own fields as it reads them.
