@@ -120,7 +120,7 @@ export function buildJointProblem(model: JointModel, stars: readonly StarListRow
     const s = g.star[o.star];
     const dT = o.temperatureC - model.referenceTemperatureC;
     const phase = (2 * Math.PI * o.ttDaysSinceJ2000) / YEAR_DAYS;
-    raRow[k] = rows.beginRow(l.raLocalCount > 0 ? 2 * o.night : -1, o.ocRaMas, o.logWeight / o.sigmaRaMas ** 2);
+    raRow[k] = rows.beginRow(l.raLocalCount > 0 ? 2 * o.night : -1, o.ocRaMas, o.nightlyOutlierRa ? 0 : o.logWeight / o.sigmaRaMas ** 2);
     put(s.ra, 1); put(s.pmRa, o.yearsFromEpoch); put(s.parallax, -o.cosDec * o.hourAnglePerParallax);
     put(g.deltaKappa, -o.cosDec * o.hourAnglePerAberration); put(g.temperatureRa, dT);
     if (g.seasonal.length > 0) { put(g.seasonal[0], Math.cos(phase)); put(g.seasonal[1], Math.sin(phase)); }
@@ -128,7 +128,7 @@ export function buildJointProblem(model: JointModel, stars: readonly StarListRow
     putLocal(l.azimuth, -o.cosDec * o.mayerA); putLocal(l.level, -o.cosDec * o.mayerB); putLocal(l.collimation, -o.cosDec * o.mayerC);
     if (Number.isNaN(o.ocZenithMas)) return;
     const side = o.zenithPerDec;
-    zenithRow[k] = rows.beginRow(l.zeroPoint >= 0 ? 2 * o.night + 1 : -1, o.ocZenithMas, o.logWeight / o.sigmaZenithMas ** 2);
+    zenithRow[k] = rows.beginRow(l.zeroPoint >= 0 ? 2 * o.night + 1 : -1, o.ocZenithMas, o.nightlyOutlierZenith ? 0 : o.logWeight / o.sigmaZenithMas ** 2);
     put(s.dec, side); put(s.pmDec, side * o.yearsFromEpoch); put(s.parallax, o.zenithPerParallax); put(g.deltaKappa, o.zenithPerAberration);
     put(g.flexure, -Math.sin(o.zenithRad)); put(g.refractionScale, -o.refractionMas); put(g.temperatureDec, side * dT);
     if (g.seasonal.length > 0) { put(g.seasonal[2], side * Math.cos(phase)); put(g.seasonal[3], side * Math.sin(phase)); }

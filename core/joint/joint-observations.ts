@@ -33,6 +33,13 @@ export interface JointObservation {
   readonly temperatureC: number;
   /** Input weight factor of the log row (0: rejected by the user). */
   readonly logWeight: number;
+  /**
+   * Whether the nightly reduction's robust rule rejected the time or the zenith distance. Such a
+   * component enters with weight 0: a gross blunder (a clock a minute off, a wrong star) is
+   * thousands of σ away and would otherwise swamp the first, unweighted pass of the joint fit.
+   */
+  readonly nightlyOutlierRa: boolean;
+  readonly nightlyOutlierZenith: boolean;
   /** Kernel factors at the observed instant (rad per rad): ∂H/∂ϖ, ∂z/∂ϖ, ∂H/∂κ, ∂z/∂κ. */
   hourAnglePerParallax: number;
   zenithPerParallax: number;

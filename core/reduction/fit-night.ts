@@ -8,8 +8,8 @@ import type { NightConstantName, NightReductionInput } from './night-inputs.ts';
 import type { ConstantResult, NightReductionResult, TransitResult } from './night-result.ts';
 import type { PrepareContext, PreparedTransit } from './prepare-transits.ts';
 import type { HeldConstant } from './resolve-constants.ts';
-import { MAX_OUTLIER_FRACTION, OUTLIER_SIGMAS, rejectOutliers } from './robust-rejection.ts';
-import { fitTimeTerms, mayerCorrectionS } from './time-fit.ts';
+import { MAX_OUTLIER_FRACTION, OUTLIER_SIGMAS, rejectOutliers, screenGrossBlunders } from './robust-rejection.ts';
+import { fitTimeTerms, mayerCorrectionS, timeResidualS } from './time-fit.ts';
 import type { TimeSolution } from './time-fit.ts';
 import { fitZenithZero, zenithSteps } from './zenith-fit.ts';
 import type { ZenithSolution } from './zenith-fit.ts';
@@ -18,7 +18,16 @@ import type { ZenithSolution } from './zenith-fit.ts';
 export const TIME_SIGMA_FLOOR_S = 0.002;
 export const ZENITH_SIGMA_FLOOR_RAD = 0.02 * ARCSEC;
 
-export const OUTLIER_RULE = `|r·√w| > ${OUTLIER_SIGMAS} × max(1.4826·MAD corrected for the fit's degrees of freedom and small samples, floor) (floors ${TIME_SIGMA_FLOOR_S} s of time, ${ZENITH_SIGMA_FLOOR_RAD / ARCSEC}″), worst first, refitting after each, at most ${MAX_OUTLIER_FRACTION * 100} % of a night's transits, in right ascension and zenith distance separately`;
+/**
+ * Gross-blunder limits, from the night's median residual at the a-priori constants: 60″ on the sky
+ * in right ascension (4 s of time at the equator; azimuth, level and collimation of a working
+ * instrument move a star by a few arcseconds on the sky, not more) and 30″ in zenith distance (half
+ * a typical micrometer turn). Common practice for a screening step, chosen here, not from a source.
+ */
+export const GROSS_TIME_SKY_ARCSEC = 60;
+export const GROSS_ZENITH_ARCSEC = 30;
+
+export const OUTLIER_RULE = `first, residuals at the a-priori constants more than ${GROSS_TIME_SKY_ARCSEC}″ on the sky (right ascension) or ${GROSS_ZENITH_ARCSEC}″ (zenith distance) from the night's median are screened out as gross blunders; then |r·√w| > ${OUTLIER_SIGMAS} × max(1.4826·MAD corrected for the fit's degrees of freedom and small samples, floor) (floors ${TIME_SIGMA_FLOOR_S} s of time, ${ZENITH_SIGMA_FLOOR_RAD / ARCSEC}″), worst first, refitting after each, at most ${MAX_OUTLIER_FRACTION * 100} % of a night's transits, in right ascension and zenith distance separately`;
 
 type Held = Record<NightConstantName, HeldConstant>;
 
@@ -32,17 +41,26 @@ function timeFit(prepared: readonly PreparedTransit[], held: Held, ctx: PrepareC
     azimuthArcsec: held.azimuthArcsec?.value ?? null, levelArcsec: held.levelArcsec?.value ?? null, collimationArcsec: held.collimationArcsec?.value ?? null,
   };
   const freeCount = [terms.freeClockOffset, terms.freeClockRate, terms.azimuthArcsec === null, terms.levelArcsec === null, terms.collimationArcsec === null].filter(Boolean).length;
-  const usable = prepared.flatMap((t, k) => (t.userRejected ? [] : [k]));
+  const notRejected = prepared.flatMap((t, k) => (t.userRejected ? [] : [k]));
+  const onSkyArcsec = (k: number): number => {
+    const t = prepared[k];
+    return 15 * Math.cos(t.prediction.topocentricDecRad) * timeResidualS(t, terms.clock, terms.azimuthArcsec ?? 0, terms.levelArcsec ?? 0, terms.collimationArcsec ?? 0);
+  };
+  const { kept: usable, gross } = screenGrossBlunders(notRejected, onSkyArcsec, GROSS_TIME_SKY_ARCSEC);
   if (usable.length < freeCount) {
     throw new RangeError(`${usable.length} usable transits for ${freeCount} free right-ascension constants; fix some constants (--fix) or observe more stars`);
   }
-  return rejectOutliers<TimeSolution>(usable, prepared.map((t) => t.weight), freeCount + 1, TIME_SIGMA_FLOOR_S, (included) => fitTimeTerms(prepared, included, terms));
+  const robust = rejectOutliers<TimeSolution>(usable, prepared.map((t) => t.weight), freeCount + 1, TIME_SIGMA_FLOOR_S, (included) => fitTimeTerms(prepared, included, terms));
+  return { ...robust, outliers: [...gross, ...robust.outliers] };
 }
 
 function zenithFit(prepared: readonly PreparedTransit[], held: Held, flexureRad: number) {
-  const usable = prepared.flatMap((t, k) => (t.userRejected || t.zenithFromReadingRad === null ? [] : [k]));
+  const withReading = prepared.flatMap((t, k) => (t.userRejected || t.zenithFromReadingRad === null ? [] : [k]));
   const heldZero = held.zenithZeroArcsec === null ? null : held.zenithZeroArcsec.value * ARCSEC;
-  return rejectOutliers<ZenithSolution>(usable, prepared.map((t) => t.weight), 2, ZENITH_SIGMA_FLOOR_RAD, (included) => fitZenithZero(prepared, included, heldZero, flexureRad));
+  const residualArcsec = (k: number): number => (zenithSteps(prepared[k], heldZero ?? 0, flexureRad)?.residualRad ?? 0) / ARCSEC;
+  const { kept: usable, gross } = screenGrossBlunders(withReading, residualArcsec, GROSS_ZENITH_ARCSEC);
+  const robust = rejectOutliers<ZenithSolution>(usable, prepared.map((t) => t.weight), 2, ZENITH_SIGMA_FLOOR_RAD, (included) => fitZenithZero(prepared, included, heldZero, flexureRad));
+  return { ...robust, outliers: [...gross, ...robust.outliers] };
 }
 
 function transitResult(t: PreparedTransit, time: TimeSolution, zero: ZenithSolution, flexureRad: number): Omit<TransitResult, 'outlierTime' | 'outlierZenith' | 'hints'> {

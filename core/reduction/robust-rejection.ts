@@ -11,6 +11,24 @@ export interface RobustOutcome<F> {
   readonly capReached: boolean;
 }
 
+/**
+ * Gross blunders are screened out before any fit: an observation whose residual at the a-priori
+ * constants lies more than `limit` from the night's median residual cannot be a measurement of the
+ * star it names (a wrong star, a clock a minute off, a wire or turn miscounted), whatever the
+ * statistics of the night say. Without this step a blunder in a night of three or four stars is
+ * absorbed by the free constants and every transit of that night looks bad, while the 25 % cap
+ * forbids rejecting it (DESIGN.md §4: robust weights must not throw whole nights away).
+ * Returns the observations kept and those screened out; the latter are never subject to the cap.
+ */
+export function screenGrossBlunders(usable: readonly number[], residualOf: (k: number) => number, limit: number): { kept: number[]; gross: number[] } {
+  if (usable.length < 3) return { kept: [...usable], gross: [] };
+  const centre = median(usable.map(residualOf));
+  const kept: number[] = [];
+  const gross: number[] = [];
+  for (const k of usable) (Math.abs(residualOf(k) - centre) > limit ? gross : kept).push(k);
+  return { kept, gross };
+}
+
 /** At most this fraction of a night's usable observations is ever rejected as outliers. */
 export const MAX_OUTLIER_FRACTION = 0.25;
 /** Rejection threshold in robust sigmas. */
