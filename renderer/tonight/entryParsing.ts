@@ -93,3 +93,10 @@ export function findProgrammeStar<T extends { readonly catalogueId: string }>(ca
   if (star === undefined) return refuse(`star "${wanted}" is not in tonight's programme; pick one of the listed ids`);
   return { ok: true, value: star };
 }
+
+/** The three fields of the live log entry, as typed. */
+export interface LogDraftFields {
+  readonly starCatalogueId: string;
+  readonly wiresText: string;
+  readonly readingText: string;
+}

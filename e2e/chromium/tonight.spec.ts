@@ -1,0 +1,74 @@
+import { expect, test } from './fixtures.ts';
+import { findNonRedColours, scanScreenshot } from './nightColours.ts';
+
+// Opens WITH the demo archive (an invented observatory: one site, one seven-wire transit
+// instrument, 24 stars) at a fixed evening, so the programme and the next star are the same on
+// every run; the clock keeps flowing from there so the countdown ticks.
+const EVENING = new Date('2026-12-01T17:00:00Z');
+
+test('the Tonight view lists the programme in time order, logs a transit by keyboard, flags a wrong wire, and keeps both across a reload', async ({ page }) => {
+  test.setTimeout(90_000);
+  await page.setViewportSize({ width: 1400, height: 1000 });
+  await page.clock.install({ time: EVENING });
+  await page.goto('./#/tonight');
+  const rows = page.getByTestId('programme').locator('tbody tr');
+  await expect.poll(() => rows.count(), { timeout: 30_000 }).toBeGreaterThan(20);
+
+  const times = (await rows.evaluateAll((trs) => trs.map((tr) => Number(tr.getAttribute('data-utc-mjd')))));
+  expect(times).toEqual([...times].sort((a, b) => a - b));
+  const countdown = page.getByTestId('countdown');
+  await expect(countdown).toHaveText(/^\d+:\d{2}:\d{2}$/);
+  const before = await countdown.textContent();
+  await expect(countdown).not.toHaveText(before ?? '', { timeout: 5000 });
+  const next = page.getByTestId('next-transit');
+  const firstStar = (await next.locator('strong').textContent()) ?? '';
+
+  // Keyboard only: the star field left empty means the next star; Enter moves on, Enter on the reading logs.
+  await page.getByLabel('Star id').focus();
+  await page.keyboard.press('Enter');
+  await expect(page.getByLabel(/^Wire times/)).toBeFocused();
+  const expected = ((await page.getByTestId('expected-wires').textContent()) ?? '').split(' ');
+  expect(expected.length).toBe(7);
+  await page.keyboard.type(expected.join(' '));
+  await page.keyboard.press('Enter');
+  await expect(page.getByLabel(/^Zenith-distance reading/)).toBeFocused();
+  const setAt = ((await page.locator('#log-reading-hint').textContent()) ?? '').replace('set at', '').trim();
+  await page.keyboard.type(setAt);
+  const omc = page.getByTestId('o-minus-c');
+  await expect(omc).toHaveAttribute('data-flagged', 'false');
+  const timeOmc = Number(/O−C time ([+−][\d.]+) s/.exec((await omc.textContent()) ?? '')?.[1].replace('−', '-'));
+  expect(Math.abs(timeOmc)).toBeLessThan(0.05); // wire times typed to 0.1 s
+  await page.keyboard.press('Enter');
+  await expect(page.getByTestId('log-status')).toContainText(`Logged ${firstStar}`);
+  const logged = page.getByTestId('logged-transits').locator('tbody tr');
+  await expect(logged).toHaveCount(1);
+  await expect(logged.first()).toContainText(firstStar);
+
+  // The next star: one wire entered against its neighbour (wire 2 gets wire 3's time).
+  await expect(next.locator('strong')).not.toHaveText(firstStar);
+  await expect(page.getByLabel(/^Wire times/)).toBeFocused();
+  const secondExpected = ((await page.getByTestId('expected-wires').textContent()) ?? '').split(' ');
+  const planted = [...secondExpected];
+  planted[1] = secondExpected[2];
+  await page.keyboard.type(planted.join(' '));
+  await expect(omc).toHaveAttribute('data-flagged', 'true');
+  await expect(page.getByTestId('probable-cause')).toContainText('neighbouring wire');
+
+  // A refused entry says why at the field and is not coerced.
+  await page.getByLabel('Star id').fill('ML-99');
+  await expect(page.locator('#log-star-hint')).toHaveText('star "ML-99" is not in tonight\'s programme; pick one of the listed ids');
+  await page.getByLabel('Star id').fill('');
+
+  // Close and reopen: the logged transit is in the archive and the half-typed entry comes back.
+  await page.reload();
+  await expect(page.getByTestId('logged-transits').locator('tbody tr')).toHaveCount(1, { timeout: 30_000 });
+  await expect(page.getByLabel(/^Wire times/)).toHaveValue(planted.join(' '));
+  await expect(page.getByTestId('probable-cause')).toContainText('neighbouring wire');
+
+  // Night mode: the filled view shows no green or blue.
+  await page.keyboard.press('Alt+KeyN');
+  await page.screenshot({ path: 'e2e-output/screenshots/night-tonight.png', fullPage: true });
+  expect(await findNonRedColours(page, 0)).toEqual([]);
+  const scan = await scanScreenshot(page, await page.screenshot({ fullPage: false }), 4);
+  expect(scan.offending, 'pixels with green or blue above 4/255 in Tonight').toBe(0);
+});
