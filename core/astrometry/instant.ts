@@ -1,12 +1,11 @@
+import type { JulianDate } from '../time/julian-date.ts';
+
 /**
  * What the astrometric model needs to know about one instant. Julian dates are two-part
  * (`jd1 + jd2` days); the structure matches `JulianDate` of core/time so an `Instant` from
  * `TimeScale` can be passed straight in.
  */
-export interface TwoPartJulianDate {
-  readonly jd1: number;
-  readonly jd2: number;
-}
+export type TwoPartJulianDate = JulianDate;
 
 /**
  * An instant in the time scales the reduction uses. `tt`: Terrestrial Time (also used as TDB for the

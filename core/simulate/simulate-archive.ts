@@ -1,5 +1,6 @@
+import type { ArchiveContent } from '../archive-folder/archive-folder.ts';
 import { approximateUtcMjd, dateMjd, quantizedClockMjd } from '../archive-folder/folder-text.ts';
-import type { InstrumentEventRecord, InstrumentRecord, NightRecord, SiteRecord, StarRecord, TransitRecord } from '../archive/records.ts';
+import type { InstrumentEventRecord, NightRecord, TransitRecord } from '../archive/records.ts';
 import { starMotion } from '../astrometry/space-motion.ts';
 import { TaskCancelledError, type TaskControl, UNCONTROLLED } from '../task/task-control.ts';
 import { BUNDLED_LEAP_SECONDS } from '../time/bundled-leap-seconds.ts';
@@ -18,13 +19,7 @@ import { simulateNight, type NightSetting } from './simulate-night.ts';
 import { inventStars } from './star-programme.ts';
 
 /** A whole simulated archive: the records as an import would store them, and the truth. */
-export interface SimulatedArchive {
-  readonly site: SiteRecord;
-  readonly instruments: readonly InstrumentRecord[];
-  readonly events: readonly InstrumentEventRecord[];
-  readonly stars: readonly StarRecord[];
-  readonly nights: readonly NightRecord[];
-  readonly transits: readonly TransitRecord[];
+export interface SimulatedArchive extends ArchiveContent {
   readonly truth: SimulationTruth;
 }
 
