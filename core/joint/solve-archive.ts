@@ -1,15 +1,17 @@
-import type { Site } from '../astrometry/site.ts';
 import { jointSolve, type JointSolution, type SolveProgress } from '../solver/index.ts';
 import type { TaskControl } from '../task/task-control.ts';
 import type { TimeScale } from '../time/timescale.ts';
-import { DEG } from '../units.ts';
 import { buildJointProblem, type JointLayout } from './build-joint-problem.ts';
+import { commonModeSeries, type InstrumentCommonMode } from './common-mode.ts';
 import { describeDegeneracies } from './degeneracy-words.ts';
 import type { JointModel } from './joint-model.ts';
 import type { JointNight, JointObservation } from './joint-observations.ts';
-import { fillObservationFactors } from './observation-factors.ts';
-import { reduceArchive } from './reduce-archive.ts';
+import { prepareArchive, type PreparedArchive } from './prepare-archive.ts';
+import { correlationOf, instrumentSeries, type CorrelationMatrix, type NightInstrumentTerms } from './solve-outputs.ts';
 import type { SolveInputs } from './solve-inputs.ts';
+import { starSignatures, type StarSignature } from './star-signatures.ts';
+
+export { JointSolveRefused } from './prepare-archive.ts';
 
 /** One star's result: absolute values (catalogue + correction) with 1σ formal errors; null for a term not estimated. */
 export interface StarResult {
@@ -35,11 +37,12 @@ export interface ArchiveSolveResult {
   readonly observations: readonly JointObservation[];
   readonly layout: JointLayout;
   readonly solution: JointSolution;
-}
-
-/** Refusal of an archive the joint solve cannot take, with the reason in words. */
-export class JointSolveRefused extends Error {
-  override readonly name = 'JointSolveRefused';
+  /** Correlations of the star and global parameters. */
+  readonly correlation: CorrelationMatrix;
+  /** Per night the instrument terms as solved, with errors. */
+  readonly instrumentSeries: readonly NightInstrumentTerms[];
+  /** Diagnostics: each star on the parallax/aberration dial with its parallax factors; each instrument's common-mode series. */
+  readonly signatures: { readonly stars: readonly StarSignature[]; readonly instruments: readonly InstrumentCommonMode[] };
 }
 
 function value(solution: JointSolution, index: number, scale = 1): [number | null, number | null] {
@@ -54,21 +57,20 @@ function value(solution: JointSolution, index: number, scale = 1): [number | nul
  */
 export async function solveArchive(inputs: SolveInputs, model: JointModel, timeScale: TimeScale, control: TaskControl,
   onSolveProgress?: (p: SolveProgress) => void): Promise<ArchiveSolveResult> {
-  const reduced = await reduceArchive(inputs, model, timeScale, control);
-  const observed = new Set(reduced.observations.map((o) => o.star));
-  if (reduced.nights.length < 2) throw new JointSolveRefused(`the archive has ${reduced.nights.length} reducible night(s); a joint solve needs at least two nights, as a single night cannot separate star positions from that night's instrument terms${reduced.skipped.length ? ` (refused nights: ${reduced.skipped.join('; ')})` : ''}`);
-  if (observed.size < 2) throw new JointSolveRefused(`only ${observed.size} star is observed; a joint solve needs at least two stars, since with one star every night's clock and zero point absorb its position — solve it against the catalogue instead`);
-  const s = inputs.site.site;
-  const site: Site = { latitudeRad: s.latitudeDeg * DEG, longitudeRad: s.longitudeDeg * DEG, heightM: s.heightM };
-  fillObservationFactors(reduced.observations, inputs.stars, site, timeScale);
-  const { problem, layout } = buildJointProblem(model, inputs.stars, reduced.nights, reduced.observations);
+  return solvePrepared(await prepareArchive(inputs, model, timeScale, control), model, control, onSolveProgress);
+}
+
+/** The joint solve of an already prepared archive (prepare-archive.ts) under `model`; see solveArchive. */
+export function solvePrepared(prepared: PreparedArchive, model: JointModel, control: TaskControl, onSolveProgress?: (p: SolveProgress) => void): ArchiveSolveResult {
+  const { stars: catalogue, nights, observations } = prepared;
+  const { problem, layout } = buildJointProblem(model, catalogue, nights, observations);
   const solution = jointSolve(problem, {
     robust: model.robustIterations > 1 ? { maxIterations: model.robustIterations } : false,
     onProgress: onSolveProgress, cancel: { get cancelled() { return control.cancellation.isCancelled; } },
   });
-  const counts = new Int32Array(inputs.stars.length);
-  for (const o of reduced.observations) counts[o.star]++;
-  const stars: StarResult[] = inputs.stars.map((star, i) => {
+  const counts = new Int32Array(catalogue.length);
+  for (const o of observations) counts[o.star]++;
+  const stars: StarResult[] = catalogue.map((star, i) => {
     const l = layout.star[i];
     const [dp, sp] = value(solution, l.parallax), [da, sa] = value(solution, l.pmRa), [dd, sd] = value(solution, l.pmDec);
     const [ra, sra] = value(solution, l.ra), [de, sde] = value(solution, l.dec);
@@ -89,10 +91,12 @@ export async function solveArchive(inputs: SolveInputs, model: JointModel, timeS
     temperatureRaArcsecPerC: tr, temperatureRaSigmaArcsecPerC: str, temperatureDecArcsecPerC: td, temperatureDecSigmaArcsecPerC: std,
     refractionScale: rs, refractionScaleSigma: srs,
   };
-  const notes = [...reduced.skipped.map((s) => `night not used: ${s}`), ...layout.appliedConstraints.map((c) => `constraint applied: ${c}`), ...solution.warnings];
+  const series = instrumentSeries(solution, layout, nights, observations);
+  const notes = [...prepared.skipped.map((s) => `night not used: ${s}`), ...layout.appliedConstraints.map((c) => `constraint applied: ${c}`), ...solution.warnings];
   return {
     stars, global, unitWeightError: solution.unitWeightError, chiSquare: solution.chiSquare, degreesOfFreedom: solution.degreesOfFreedom,
-    degeneracies: describeDegeneracies(solution, reduced.observations, inputs.stars, layout), notes,
-    nights: reduced.nights, observations: reduced.observations, layout, solution,
+    degeneracies: describeDegeneracies(solution, observations, catalogue, layout), notes,
+    nights, observations, layout, solution, correlation: correlationOf(solution), instrumentSeries: series,
+    signatures: { stars: starSignatures(solution, layout, catalogue, observations), instruments: commonModeSeries(solution, layout, series, observations) },
   };
 }

@@ -29,6 +29,22 @@ describe('meridian-ledger solve', () => {
     expect(Number.isFinite(out.global.deltaKappaArcsec) && out.global.deltaKappaSigmaArcsec > 0).toBe(true);
     expect(out.unitWeightError).toBeGreaterThan(0.5);
     expect(Array.isArray(out.degeneracies)).toBe(true);
+    expect(out.chiSquare / out.degreesOfFreedom).toBeCloseTo(out.unitWeightError ** 2, 6);
+    expect(out.correlation.matrix).toHaveLength(out.correlation.names.length);
+    expect(out.instrumentSeries).toHaveLength(out.nights.length);
+    expect(out.signatures.stars).toHaveLength(8);
+    expect(typeof out.signatures.instruments[0].annualSignalFlagged).toBe('boolean');
+    expect(out.residuals, 'residuals only with --residuals').toBeUndefined();
+  }, 60_000);
+
+  it('--json --residuals adds one row per transit with residual, weight and flag; --residuals alone is a usage error', () => {
+    const result = run(['solve', join(dir, 'archive'), '--json', '--residuals']);
+    expect(result.status, result.stderr).toBe(0);
+    const out = JSON.parse(result.stdout);
+    const transits = out.stars.reduce((s: number, star: { observations: number }) => s + star.observations, 0);
+    expect(out.residuals).toHaveLength(transits);
+    expect(Number.isFinite(out.residuals[0].ra.residualMas) && out.residuals[0].ra.weight >= 0).toBe(true);
+    expect(run(['solve', join(dir, 'archive'), '--residuals']).status).toBe(2);
   }, 60_000);
 
   it('without --json prints a readable report with a line per star', () => {

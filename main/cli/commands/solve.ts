@@ -1,13 +1,14 @@
 import { readFile, stat } from 'node:fs/promises';
 import { DEFAULT_JOINT_MODEL, parseJointModel, type JointModel } from '../../../core/joint/joint-model.ts';
 import { JointSolveRefused, solveArchive, type ArchiveSolveResult } from '../../../core/joint/solve-archive.ts';
-import { readSolveInputs } from '../../../core/joint/solve-inputs.ts';
+import { readSolveInputs, type SolveInputs } from '../../../core/joint/solve-inputs.ts';
+import { observationResiduals } from '../../../core/joint/solve-outputs.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../../core/time/timescale.ts';
 import { readArchiveFolderFiles } from '../../archive/archive-folder-files.ts';
 import { type CliIo, type Command, EXIT_FAILED, EXIT_OK, UsageError } from '../command.ts';
 
-const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json]
+const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json [--residuals]]
 
 Solves every star, global and per-night term of the archive folder DIR (as 'meridian-ledger
 simulate' writes it) at once: each night is first reduced (clock from its comparisons, b from its
@@ -16,15 +17,18 @@ per-night clock, a, b, c and zero points are fitted together (core/joint/SOLVE.m
 
   --model FILE   model file (JSON): which terms are free, fixed or absent, stated precisions,
                  catalogue σ (SOLVE.md lists every key); default: the practitioner defaults
-  --json         print the result as JSON (absolute parallax and proper motion per star)
+  --json         print the result as JSON (absolute parallax and proper motion per star, the
+                 correlation matrix, per-night instrument terms, the diagnostics' signatures)
+  --residuals    with --json: add every transit's residuals, weights and flags (large)
 Progress goes to stderr. Exit 1 for an unreadable archive or model file (every problem listed),
 2 for a usage error.`;
 
-function parseArguments(args: readonly string[]): { dir: string; modelFile: string | null; json: boolean } {
-  let dir: string | null = null, modelFile: string | null = null, json = false;
+function parseArguments(args: readonly string[]): { dir: string; modelFile: string | null; json: boolean; residuals: boolean } {
+  let dir: string | null = null, modelFile: string | null = null, json = false, residuals = false;
   for (let i = 0; i < args.length; i++) {
     const a = args[i];
     if (a === '--json') json = true;
+    else if (a === '--residuals') residuals = true;
     else if (a === '--model') {
       const v = args[++i];
       if (v === undefined || v.startsWith('--')) throw new UsageError('--model needs a file name');
@@ -34,14 +38,17 @@ function parseArguments(args: readonly string[]): { dir: string; modelFile: stri
     else throw new UsageError(`only one archive folder may be given (got "${dir}" and "${a}")`);
   }
   if (dir === null) throw new UsageError('the archive folder DIR is required');
-  return { dir, modelFile, json };
+  if (residuals && !json) throw new UsageError('--residuals needs --json (the residuals are only written as JSON)');
+  return { dir, modelFile, json, residuals };
 }
 
-function toJson(r: ArchiveSolveResult): unknown {
+function toJson(r: ArchiveSolveResult, stars: SolveInputs['stars'], residuals: boolean): unknown {
   return {
     stars: r.stars, global: r.global, unitWeightError: r.unitWeightError, chiSquare: r.chiSquare, degreesOfFreedom: r.degreesOfFreedom,
     degeneracies: r.degeneracies, notes: r.notes,
     nights: r.nights.map((n) => ({ id: n.id, instrumentId: n.instrumentId, nightly: n.nightly })),
+    correlation: r.correlation, instrumentSeries: r.instrumentSeries, signatures: r.signatures,
+    ...(residuals ? { residuals: observationResiduals(r.solution, r.layout, stars, r.nights, r.observations) } : {}),
   };
 }
 
@@ -75,7 +82,7 @@ export const solveCommand: Command = {
   summary: 'joint solve of an archive folder: parallaxes, proper motions, Δκ and per-night instrument terms at once',
   usage: USAGE,
   async run(args, io) {
-    const { dir, modelFile, json } = parseArguments(args);
+    const { dir, modelFile, json, residuals } = parseArguments(args);
     const isDir = await stat(dir).then((s) => s.isDirectory(), () => false);
     if (!isDir) { io.stderr.write(`solve: ${dir} is not a folder; give the archive folder 'meridian-ledger simulate --out' wrote\n`); return EXIT_FAILED; }
     const model = await loadModel(modelFile, io);
@@ -95,7 +102,7 @@ export const solveCommand: Command = {
       throw error;
     }
     io.stderr.write(`solve: done in ${((performance.now() - started) / 1000).toFixed(1)} s\n`);
-    io.stdout.write(json ? `${JSON.stringify(toJson(result), null, 2)}\n` : textReport(result));
+    io.stdout.write(json ? `${JSON.stringify(toJson(result, inputs.stars, residuals), null, 2)}\n` : textReport(result));
     return EXIT_OK;
   },
 };
