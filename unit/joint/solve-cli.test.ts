@@ -47,6 +47,18 @@ describe('meridian-ledger solve', () => {
     expect(run(['solve', join(dir, 'archive'), '--residuals']).status).toBe(2);
   }, 60_000);
 
+  it('--compare temperature prints the F-test and BIC; an unknown term is a usage error', () => {
+    const result = run(['solve', join(dir, 'archive'), '--compare', 'temperature', '--json']);
+    expect(result.status, result.stderr).toBe(0);
+    const out = JSON.parse(result.stdout);
+    expect(out.term).toBe('temperature');
+    expect(out.fTest.numeratorDegrees).toBe(2);
+    // No thermal drift in this simulated archive: the term should not be significant (common practice: p ≥ 0.01).
+    expect(out.fTest.pValue).toBeGreaterThan(0.01);
+    expect(run(['solve', join(dir, 'archive'), '--compare']).status).toBe(2);
+    expect(run(['solve', join(dir, 'archive'), '--compare', 'weather']).stderr).toMatch(/--compare needs one of/);
+  }, 60_000);
+
   it('without --json prints a readable report with a line per star', () => {
     const result = run(['solve', join(dir, 'archive')]);
     expect(result.status, result.stderr).toBe(0);

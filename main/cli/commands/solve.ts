@@ -1,5 +1,7 @@
 import { readFile, stat } from 'node:fs/promises';
 import { DEFAULT_JOINT_MODEL, parseJointModel, type JointModel } from '../../../core/joint/joint-model.ts';
+import { COMPARABLE_TERMS, compareTerm, type ComparableTerm, type TermComparison } from '../../../core/joint/compare-term.ts';
+import { prepareArchive } from '../../../core/joint/prepare-archive.ts';
 import { JointSolveRefused, solveArchive, type ArchiveSolveResult } from '../../../core/joint/solve-archive.ts';
 import { readSolveInputs, type SolveInputs } from '../../../core/joint/solve-inputs.ts';
 import { observationResiduals } from '../../../core/joint/solve-outputs.ts';
@@ -8,7 +10,7 @@ import { TimeScale } from '../../../core/time/timescale.ts';
 import { readArchiveFolderFiles } from '../../archive/archive-folder-files.ts';
 import { type CliIo, type Command, EXIT_FAILED, EXIT_OK, UsageError } from '../command.ts';
 
-const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json [--residuals]]
+const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json [--residuals]] [--compare TERM]
 
 Solves every star, global and per-night term of the archive folder DIR (as 'meridian-ledger
 simulate' writes it) at once: each night is first reduced (clock from its comparisons, b from its
@@ -20,15 +22,22 @@ per-night clock, a, b, c and zero points are fitted together (core/joint/SOLVE.m
   --json         print the result as JSON (absolute parallax and proper motion per star, the
                  correlation matrix, per-night instrument terms, the diagnostics' signatures)
   --residuals    with --json: add every transit's residuals, weights and flags (large)
+  --compare TERM solve with TERM free and absent (plain least squares) and print the nested
+                 F-test and BIC instead of the solve; TERM: ${COMPARABLE_TERMS.join(', ')}
 Progress goes to stderr. Exit 1 for an unreadable archive or model file (every problem listed),
 2 for a usage error.`;
 
-function parseArguments(args: readonly string[]): { dir: string; modelFile: string | null; json: boolean; residuals: boolean } {
-  let dir: string | null = null, modelFile: string | null = null, json = false, residuals = false;
+function parseArguments(args: readonly string[]): { dir: string; modelFile: string | null; json: boolean; residuals: boolean; compare: ComparableTerm | null } {
+  let dir: string | null = null, modelFile: string | null = null, json = false, residuals = false, compare: ComparableTerm | null = null;
   for (let i = 0; i < args.length; i++) {
     const a = args[i];
     if (a === '--json') json = true;
     else if (a === '--residuals') residuals = true;
+    else if (a === '--compare') {
+      const v = args[++i];
+      if (!(COMPARABLE_TERMS as readonly string[]).includes(v ?? '')) throw new UsageError(`--compare needs one of ${COMPARABLE_TERMS.join(', ')} (got ${v === undefined ? 'nothing' : `"${v}"`})`);
+      compare = v as ComparableTerm;
+    }
     else if (a === '--model') {
       const v = args[++i];
       if (v === undefined || v.startsWith('--')) throw new UsageError('--model needs a file name');
@@ -39,7 +48,7 @@ function parseArguments(args: readonly string[]): { dir: string; modelFile: stri
   }
   if (dir === null) throw new UsageError('the archive folder DIR is required');
   if (residuals && !json) throw new UsageError('--residuals needs --json (the residuals are only written as JSON)');
-  return { dir, modelFile, json, residuals };
+  return { dir, modelFile, json, residuals, compare };
 }
 
 function toJson(r: ArchiveSolveResult, stars: SolveInputs['stars'], residuals: boolean): unknown {
@@ -68,6 +77,14 @@ function textReport(r: ArchiveSolveResult): string {
   return `${lines.join('\n')}\n`;
 }
 
+function comparisonReport(c: TermComparison): string {
+  const verdict = c.fTest.pValue < 0.01 ? 'the term is significant (p < 0.01)' : 'the term is not significant (p ≥ 0.01)';
+  return `${[`model comparison for "${c.term}" on ${c.observations} observations (plain least squares):`,
+    `  without: χ² ${c.without.chiSquare.toFixed(1)}, ${c.without.rank} parameters, BIC ${c.without.bic.toFixed(1)}`,
+    `  with:    χ² ${c.with.chiSquare.toFixed(1)}, ${c.with.rank} parameters, BIC ${c.with.bic.toFixed(1)}`,
+    `  F(${c.fTest.numeratorDegrees}, ${c.fTest.denominatorDegrees}) = ${c.fTest.f.toFixed(2)}, p = ${c.fTest.pValue.toExponential(2)}: ${verdict}; BIC prefers the model ${c.with.bic < c.without.bic ? 'with' : 'without'} it`].join('\n')}\n`;
+}
+
 async function loadModel(file: string | null, io: CliIo): Promise<JointModel | null> {
   if (file === null) return DEFAULT_JOINT_MODEL;
   let text: string;
@@ -82,7 +99,7 @@ export const solveCommand: Command = {
   summary: 'joint solve of an archive folder: parallaxes, proper motions, Δκ and per-night instrument terms at once',
   usage: USAGE,
   async run(args, io) {
-    const { dir, modelFile, json, residuals } = parseArguments(args);
+    const { dir, modelFile, json, residuals, compare } = parseArguments(args);
     const isDir = await stat(dir).then((s) => s.isDirectory(), () => false);
     if (!isDir) { io.stderr.write(`solve: ${dir} is not a folder; give the archive folder 'meridian-ledger simulate --out' wrote\n`); return EXIT_FAILED; }
     const model = await loadModel(modelFile, io);
@@ -90,13 +107,19 @@ export const solveCommand: Command = {
     const { inputs, problems } = readSolveInputs(await readArchiveFolderFiles(dir));
     if (inputs === null) { for (const p of problems) io.stderr.write(`solve: ${p}\n`); return EXIT_FAILED; }
     const started = performance.now();
+    const control = {
+      cancellation: { isCancelled: false },
+      reportProgress: (done: number, total: number) => { if (done % 100 === 0 || done === total) io.stderr.write(`solve: nightly reduction ${done} of ${total} nights\n`); },
+      yieldToHost: () => Promise.resolve(),
+    };
     let result: ArchiveSolveResult;
     try {
-      result = await solveArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), {
-        cancellation: { isCancelled: false },
-        reportProgress: (done, total) => { if (done % 100 === 0 || done === total) io.stderr.write(`solve: nightly reduction ${done} of ${total} nights\n`); },
-        yieldToHost: () => Promise.resolve(),
-      }, (p) => { if (p.fraction === 1 && p.phase === 'solve') io.stderr.write(`solve: joint pass ${p.iteration} of at most ${p.iterationLimit}\n`); });
+      if (compare !== null) {
+        const comparison = compareTerm(await prepareArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control), model, compare, control);
+        io.stdout.write(json ? `${JSON.stringify(comparison, null, 2)}\n` : comparisonReport(comparison));
+        return EXIT_OK;
+      }
+      result = await solveArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control, (p) => { if (p.fraction === 1 && p.phase === 'solve') io.stderr.write(`solve: joint pass ${p.iteration} of at most ${p.iterationLimit}\n`); });
     } catch (error) {
       if (error instanceof JointSolveRefused) { io.stderr.write(`solve: ${error.message}\n`); return EXIT_FAILED; }
       throw error;
