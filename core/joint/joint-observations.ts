@@ -34,7 +34,8 @@ export interface JointObservation {
   /** Input weight factor of the log row (0: rejected by the user). */
   readonly logWeight: number;
   /**
-   * Whether the nightly reduction's robust rule rejected the time or the zenith distance. Such a
+   * Whether the nightly reduction screened the time or the zenith distance out as a gross blunder
+   * (not a statistical rejection, which the joint solve's own robust weights judge). Such a
    * component enters with weight 0: a gross blunder (a clock a minute off, a wrong star) is
    * thousands of σ away and would otherwise swamp the first, unweighted pass of the joint fit.
    */

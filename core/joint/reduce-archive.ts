@@ -58,7 +58,7 @@ function observationOf(t: TransitResult, ctx: { night: number; star: number; nig
     refractionMas: z === null ? 0 : z.refractionArcsec * 1000,
     zenithPerDec: t.culmination === 'lower' ? -1 : z?.side === 'north' ? 1 : -1,
     temperatureC: ctx.temperatureC, logWeight: t.userRejected ? 0 : ctx.logWeight,
-    nightlyOutlierRa: t.outlierTime, nightlyOutlierZenith: t.outlierZenith,
+    nightlyOutlierRa: t.grossBlunderTime, nightlyOutlierZenith: t.grossBlunderZenith,
     hourAnglePerParallax: 0, zenithPerParallax: 0, hourAnglePerAberration: 0, zenithPerAberration: 0,
   };
 }

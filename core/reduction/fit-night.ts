@@ -51,7 +51,7 @@ function timeFit(prepared: readonly PreparedTransit[], held: Held, ctx: PrepareC
     throw new RangeError(`${usable.length} usable transits for ${freeCount} free right-ascension constants; fix some constants (--fix) or observe more stars`);
   }
   const robust = rejectOutliers<TimeSolution>(usable, prepared.map((t) => t.weight), freeCount + 1, TIME_SIGMA_FLOOR_S, (included) => fitTimeTerms(prepared, included, terms));
-  return { ...robust, outliers: [...gross, ...robust.outliers] };
+  return { ...robust, outliers: [...gross, ...robust.outliers], gross };
 }
 
 function zenithFit(prepared: readonly PreparedTransit[], held: Held, flexureRad: number) {
@@ -60,10 +60,10 @@ function zenithFit(prepared: readonly PreparedTransit[], held: Held, flexureRad:
   const residualArcsec = (k: number): number => (zenithSteps(prepared[k], heldZero ?? 0, flexureRad)?.residualRad ?? 0) / ARCSEC;
   const { kept: usable, gross } = screenGrossBlunders(withReading, residualArcsec, GROSS_ZENITH_ARCSEC);
   const robust = rejectOutliers<ZenithSolution>(usable, prepared.map((t) => t.weight), 2, ZENITH_SIGMA_FLOOR_RAD, (included) => fitZenithZero(prepared, included, heldZero, flexureRad));
-  return { ...robust, outliers: [...gross, ...robust.outliers] };
+  return { ...robust, outliers: [...gross, ...robust.outliers], gross };
 }
 
-function transitResult(t: PreparedTransit, time: TimeSolution, zero: ZenithSolution, flexureRad: number): Omit<TransitResult, 'outlierTime' | 'outlierZenith' | 'hints'> {
+function transitResult(t: PreparedTransit, time: TimeSolution, zero: ZenithSolution, flexureRad: number): Omit<TransitResult, 'outlierTime' | 'outlierZenith' | 'grossBlunderTime' | 'grossBlunderZenith' | 'hints'> {
   const correctionS = clockCorrectionAtS(time.clock, t.nominalS);
   const observedUtcS = t.nominalS + correctionS;
   const tau = mayerCorrectionS(t, time.azimuthArcsec, time.levelArcsec, time.collimationArcsec);
@@ -108,7 +108,10 @@ export async function fitNight(
     const base = transitResult(t, time.fit, zen.fit, flexureRad);
     const zenithOc = base.zenith === null ? null : base.zenith.ocZenithArcsec * ARCSEC;
     const hints = hintsFor(t, base.ocTimeS, zenithOc, { ...search, timeSigmaS: timeSigmaS / Math.sqrt(t.weight), zenithSigmaRad: zenithSigmaRad / Math.sqrt(t.weight) });
-    transits.push({ ...base, outlierTime: time.outliers.includes(k), outlierZenith: zen.outliers.includes(k), hints });
+    transits.push({
+      ...base, outlierTime: time.outliers.includes(k), outlierZenith: zen.outliers.includes(k),
+      grossBlunderTime: time.gross.includes(k), grossBlunderZenith: zen.gross.includes(k), hints,
+    });
   }
   await control.yieldToHost();
   const s = time.fit.sigmas;

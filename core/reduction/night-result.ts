@@ -41,6 +41,13 @@ export interface TransitResult {
   readonly userRejected: boolean;
   readonly outlierTime: boolean;
   readonly outlierZenith: boolean;
+  /**
+   * The outlier was a gross blunder, screened out before the fit (fit-night.ts GROSS_… limits),
+   * not a statistical rejection: a joint solve drops these and leaves the others to its own
+   * robust weights.
+   */
+  readonly grossBlunderTime: boolean;
+  readonly grossBlunderZenith: boolean;
   /** Probable causes of a large residual, best first (blunder-hints.ts); empty when none fits. */
   readonly hints: readonly BlunderCandidate[];
 }
