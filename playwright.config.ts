@@ -11,7 +11,8 @@ export const CHROMIUM_ARGS = [
   '--disable-component-update',
   '--disable-sync',
 ];
-export const WEB_PORT = 4317;
+// E2E_PORT lets two runs on one machine use different ports.
+export const WEB_PORT = Number(process.env.E2E_PORT ?? 4317);
 
 export default defineConfig({
   testDir: 'e2e',
