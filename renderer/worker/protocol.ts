@@ -1,6 +1,7 @@
 import type { EclipticFieldRequest, EclipticFieldResult } from './tasks/eclipticField.ts';
 import { isExchangeKind, type ExchangeRequest, type ExchangeResult } from './tasks/exchangeTasks.ts';
 import type { TonightProgrammeRequest, TonightProgrammeResult } from './tasks/tonightProgramme.ts';
+import type { JointSolveRequest, JointSolveResult, SolveFingerprintRequest, SolveFingerprintResult } from './tasks/jointSolve.ts';
 
 /**
  * The messages between the renderer and the compute worker. Hand-written discriminated unions:
@@ -8,8 +9,8 @@ import type { TonightProgrammeRequest, TonightProgrammeResult } from './tasks/to
  */
 
 /** What a job computes; one member per task the worker knows. */
-export type TaskRequest = EclipticFieldRequest | ExchangeRequest | TonightProgrammeRequest;
-export type TaskResult = EclipticFieldResult | ExchangeResult | TonightProgrammeResult;
+export type TaskRequest = EclipticFieldRequest | ExchangeRequest | TonightProgrammeRequest | JointSolveRequest | SolveFingerprintRequest;
+export type TaskResult = EclipticFieldResult | ExchangeResult | TonightProgrammeResult | JointSolveResult | SolveFingerprintResult;
 export type TaskKind = TaskRequest['kind'];
 
 export type ToWorker =
@@ -53,6 +54,10 @@ export function parseToWorker(message: unknown): ToWorker | string {
   if (request.kind === 'tonight-programme') {
     // The task checks the window; the star and site fields are checked by core as it reads them.
     return { type: 'start', jobId: message.jobId, request: request as unknown as TonightProgrammeRequest };
+  }
+  if ((request.kind === 'joint-solve' || request.kind === 'solve-fingerprint') && typeof request.databaseName === 'string') {
+    // The task reads the model and selection as typed by the view; core checks the archive it reads.
+    return { type: 'start', jobId: message.jobId, request: request as unknown as JointSolveRequest | SolveFingerprintRequest };
   }
   if (isExchangeKind(request.kind) && typeof request.databaseName === 'string') {
     // Structured clone keeps the shape; each Exchange task checks its own fields as it reads them.
