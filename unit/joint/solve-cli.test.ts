@@ -59,6 +59,29 @@ describe('meridian-ledger solve', () => {
     expect(run(['solve', join(dir, 'archive'), '--compare', 'weather']).stderr).toMatch(/--compare needs one of/);
   }, 60_000);
 
+  it('--cross-validate --json gives per star the parallax of each left-out year, the spread, the largest shift and the flag', () => {
+    const result = run(['solve', join(dir, 'archive'), '--cross-validate', '--json']);
+    expect(result.status, result.stderr).toBe(0);
+    expect(result.stderr).toMatch(/fold 2 of 2 \(without 2022\) solved/);
+    const out = JSON.parse(result.stdout);
+    // The simulator starts on 2021-01-01 and this archive spans two years (simulation-options.ts).
+    expect(out.years).toEqual([2021, 2022]);
+    expect(out.flagSigma).toBe(3);
+    expect(out.stars).toHaveLength(8);
+    for (const s of out.stars) {
+      expect(s.folds.map((f: { year: number }) => f.year)).toEqual([2021, 2022]);
+      for (const f of s.folds) expect(f.parallaxSigmaMas, `${s.id} ${f.year}`).toBeGreaterThan(s.fullParallaxSigmaMas);
+      expect(s.spreadMas).toBeGreaterThanOrEqual(0);
+      // A clean simulated archive: no year pulls a parallax (common practice: 3σ).
+      expect(s.flagged, `${s.id} at ${s.maxShiftDifferenceSigma}σ`).toBe(false);
+    }
+    const text = run(['solve', join(dir, 'archive'), '--cross-validate']);
+    expect(text.status, text.stderr).toBe(0);
+    expect(text.stdout).toMatch(/^ML-001 /m);
+    expect(text.stdout).toMatch(/No star flagged/);
+    expect(run(['solve', join(dir, 'archive'), '--cross-validate', '--compare', 'flexure']).status).toBe(2);
+  }, 120_000);
+
   it('without --json prints a readable report with a line per star', () => {
     const result = run(['solve', join(dir, 'archive')]);
     expect(result.status, result.stderr).toBe(0);

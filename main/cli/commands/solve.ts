@@ -1,6 +1,7 @@
 import { readFile, stat } from 'node:fs/promises';
 import { DEFAULT_JOINT_MODEL, parseJointModel, type JointModel } from '../../../core/joint/joint-model.ts';
 import { COMPARABLE_TERMS, compareTerm, type ComparableTerm, type TermComparison } from '../../../core/joint/compare-term.ts';
+import { crossValidateYears, type CrossValidation } from '../../../core/joint/cross-validate.ts';
 import { prepareArchive } from '../../../core/joint/prepare-archive.ts';
 import { JointSolveRefused, solveArchive, type ArchiveSolveResult } from '../../../core/joint/solve-archive.ts';
 import { readSolveInputs, type SolveInputs } from '../../../core/joint/solve-inputs.ts';
@@ -10,7 +11,7 @@ import { TimeScale } from '../../../core/time/timescale.ts';
 import { readArchiveFolderFiles } from '../../archive/archive-folder-files.ts';
 import { type CliIo, type Command, EXIT_FAILED, EXIT_OK, UsageError } from '../command.ts';
 
-const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json [--residuals]] [--compare TERM]
+const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json [--residuals]] [--compare TERM | --cross-validate]
 
 Solves every star, global and per-night term of the archive folder DIR (as 'meridian-ledger
 simulate' writes it) at once: each night is first reduced (clock from its comparisons, b from its
@@ -24,14 +25,20 @@ per-night clock, a, b, c and zero points are fitted together (core/joint/SOLVE.m
   --residuals    with --json: add every transit's residuals, weights and flags (large)
   --compare TERM solve with TERM free and absent (plain least squares) and print the nested
                  F-test and BIC instead of the solve; TERM: ${COMPARABLE_TERMS.join(', ')}
+  --cross-validate solve again with each calendar year (of 10 nights or more) left out and
+                 print per star the parallax of each fold, their spread, the largest shift in σ,
+                 and a flag when a shift exceeds 3σ (one year imitating parallax)
 Progress goes to stderr. Exit 1 for an unreadable archive or model file (every problem listed),
 2 for a usage error.`;
 
-function parseArguments(args: readonly string[]): { dir: string; modelFile: string | null; json: boolean; residuals: boolean; compare: ComparableTerm | null } {
-  let dir: string | null = null, modelFile: string | null = null, json = false, residuals = false, compare: ComparableTerm | null = null;
+interface SolveArguments { dir: string; modelFile: string | null; json: boolean; residuals: boolean; compare: ComparableTerm | null; crossValidate: boolean }
+
+function parseArguments(args: readonly string[]): SolveArguments {
+  let dir: string | null = null, modelFile: string | null = null, json = false, residuals = false, compare: ComparableTerm | null = null, crossValidate = false;
   for (let i = 0; i < args.length; i++) {
     const a = args[i];
     if (a === '--json') json = true;
+    else if (a === '--cross-validate') crossValidate = true;
     else if (a === '--residuals') residuals = true;
     else if (a === '--compare') {
       const v = args[++i];
@@ -48,7 +55,8 @@ function parseArguments(args: readonly string[]): { dir: string; modelFile: stri
   }
   if (dir === null) throw new UsageError('the archive folder DIR is required');
   if (residuals && !json) throw new UsageError('--residuals needs --json (the residuals are only written as JSON)');
-  return { dir, modelFile, json, residuals, compare };
+  if (crossValidate && (compare !== null || residuals)) throw new UsageError('--cross-validate cannot be combined with --compare or --residuals');
+  return { dir, modelFile, json, residuals, compare, crossValidate };
 }
 
 function toJson(r: ArchiveSolveResult, stars: SolveInputs['stars'], residuals: boolean): unknown {
@@ -85,6 +93,21 @@ function comparisonReport(c: TermComparison): string {
     `  F(${c.fTest.numeratorDegrees}, ${c.fTest.denominatorDegrees}) = ${c.fTest.f.toFixed(2)}, p = ${c.fTest.pValue.toExponential(2)}: ${verdict}; BIC prefers the model ${c.with.bic < c.without.bic ? 'with' : 'without'} it`].join('\n')}\n`;
 }
 
+function crossValidationReport(cv: CrossValidation): string {
+  const shift = (v: number | null) => (v === null ? '—' : v.toFixed(1));
+  const lines = [`leave-one-year-out cross-validation of the parallaxes: folds without ${cv.years.join(', ')}; flag when a shift exceeds ${cv.flagSigma}σ of its expected scatter`, '',
+    `star         parallax mas       ${cv.years.map((y) => `−${y}`.padStart(9)).join('')}  spread  max shift σ_full / σ_d`];
+  for (const s of cv.stars) {
+    const folds = cv.years.map((y) => fixed(s.folds.find((f) => f.year === y)?.parallaxMas ?? null, 2).padStart(9)).join('');
+    lines.push(`${s.id.padEnd(12)}${fixed(s.fullParallaxMas, 2).padStart(8)} ± ${fixed(s.fullParallaxSigmaMas, 2).padEnd(6)}  ${folds}  ${fixed(s.spreadMas, 2).padStart(6)}  ${shift(s.maxShiftFullSigma).padStart(5)} / ${shift(s.maxShiftDifferenceSigma).padEnd(5)}${s.flagged ? ` FLAGGED (${s.worstYear})` : ''}`);
+  }
+  const flagged = cv.stars.filter((s) => s.flagged);
+  lines.push('', flagged.length === 0 ? 'No star flagged: every parallax survives leaving out any one year.'
+    : `${flagged.length} star(s) flagged: one year pulls their parallax; look for a season-locked instrument term or a bad year (${flagged.map((s) => `${s.id}: ${s.worstYear}`).join(', ')}).`);
+  if (cv.notes.length > 0) lines.push('', 'Notes:', ...cv.notes.map((n) => `  - ${n}`));
+  return `${lines.join('\n')}\n`;
+}
+
 async function loadModel(file: string | null, io: CliIo): Promise<JointModel | null> {
   if (file === null) return DEFAULT_JOINT_MODEL;
   let text: string;
@@ -99,7 +122,7 @@ export const solveCommand: Command = {
   summary: 'joint solve of an archive folder: parallaxes, proper motions, Δκ and per-night instrument terms at once',
   usage: USAGE,
   async run(args, io) {
-    const { dir, modelFile, json, residuals, compare } = parseArguments(args);
+    const { dir, modelFile, json, residuals, compare, crossValidate } = parseArguments(args);
     const isDir = await stat(dir).then((s) => s.isDirectory(), () => false);
     if (!isDir) { io.stderr.write(`solve: ${dir} is not a folder; give the archive folder 'meridian-ledger simulate --out' wrote\n`); return EXIT_FAILED; }
     const model = await loadModel(modelFile, io);
@@ -117,6 +140,12 @@ export const solveCommand: Command = {
       if (compare !== null) {
         const comparison = compareTerm(await prepareArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control), model, compare, control);
         io.stdout.write(json ? `${JSON.stringify(comparison, null, 2)}\n` : comparisonReport(comparison));
+        return EXIT_OK;
+      }
+      if (crossValidate) {
+        const prepared = await prepareArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control);
+        const cv = crossValidateYears(prepared, model, control, { onFold: (year, done, total) => io.stderr.write(`solve: fold ${done} of ${total} (without ${year}) solved\n`) });
+        io.stdout.write(json ? `${JSON.stringify(cv, null, 2)}\n` : crossValidationReport(cv));
         return EXIT_OK;
       }
       result = await solveArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control, (p) => { if (p.fraction === 1 && p.phase === 'solve') io.stderr.write(`solve: joint pass ${p.iteration} of at most ${p.iterationLimit}\n`); });
