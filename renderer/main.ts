@@ -8,6 +8,8 @@ import { ArchiveState } from './app/archiveState.svelte.ts';
 import { fetchBundledDemo } from './demo/demoArchive.ts';
 import { ComputeClient } from './worker/computeClient.ts';
 import { selectBridge } from './bridge/selectBridge.ts';
+import { backupBeforeUpgrade } from './exchange/preUpgradeBackup.ts';
+import { ARCHIVE_DATABASE_NAME } from './store/database.ts';
 
 function localStorageOrNull(): Storage | null {
   try {
@@ -28,9 +30,9 @@ const router = new ViewRouter(window);
 const archive = new ArchiveState();
 // `?no-demo` opens an empty archive without the demo (tests, and users who want to start blank).
 const loadDemo = !new URLSearchParams(window.location.search).has('no-demo');
-void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined);
+const bridge = selectBridge(window, __APP_VERSION__);
+void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined, backupBeforeUpgrade(ARCHIVE_DATABASE_NAME, bridge));
 const worker = new Worker(new URL('./worker/compute.worker.ts', import.meta.url), { type: 'module' });
 const compute = new ComputeClient(worker);
-const bridge = selectBridge(window, __APP_VERSION__);
 
 mount(App, { target, props: { router, themeState, archive, compute, bridge } });

@@ -1,3 +1,4 @@
+import type { BeforeUpgrade } from '../exchange/preUpgradeBackup.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import type { ArchiveOpenFailure } from '../store/describeOpenFailure.ts';
 import { openArchive } from '../store/openArchive.ts';
@@ -20,9 +21,11 @@ export class ArchiveState {
   /**
    * Opens the archive, sweeps interrupted imports, restores the demo archive on the very first
    * start of an empty archive (when `fetchDemo` is given), then asks for persistent storage.
+   * `beforeUpgrade` runs when the archive on disk is older than this build (the desktop app backs
+   * the old archive up there, renderer/exchange/preUpgradeBackup.ts).
    */
-  async start(storage: StorageManagerLike | undefined, databaseName?: string, fetchDemo?: () => Promise<Uint8Array>): Promise<void> {
-    const result = await openArchive(databaseName);
+  async start(storage: StorageManagerLike | undefined, databaseName?: string, fetchDemo?: () => Promise<Uint8Array>, beforeUpgrade?: BeforeUpgrade): Promise<void> {
+    const result = await openArchive(databaseName, beforeUpgrade);
     if (result.kind === 'open') {
       this.sweptImports = await sweepInterruptedImports(result.database, nowUtcIso());
       if (fetchDemo !== undefined) {

@@ -24,13 +24,21 @@ async function nativeVersionOf(name: string): Promise<number | null> {
  * anyway and even add missing tables, and this build would then misread rows a later upgrade
  * rewrote.
  */
-export async function openArchive(name: string = ARCHIVE_DATABASE_NAME): Promise<ArchiveOpenResult> {
+export async function openArchive(
+  name: string = ARCHIVE_DATABASE_NAME,
+  /** Runs when the archive on disk is older than this build, before the upgrade; a failure it returns stops the open. */
+  beforeUpgrade?: (fromSchemaVersion: number) => Promise<ArchiveOpenFailure | null>,
+): Promise<ArchiveOpenResult> {
   let database: ArchiveDatabase | undefined;
   try {
     const nativeVersion = await nativeVersionOf(name);
     if (nativeVersion !== null && nativeVersion > ARCHIVE_SCHEMA_VERSION * DEXIE_VERSION_FACTOR) {
       const schemaVersion = nativeVersion / DEXIE_VERSION_FACTOR;
       return { kind: 'failed', failure: describeNewerArchive(schemaVersion, ARCHIVE_SCHEMA_VERSION) };
+    }
+    if (beforeUpgrade !== undefined && nativeVersion !== null && nativeVersion < ARCHIVE_SCHEMA_VERSION * DEXIE_VERSION_FACTOR) {
+      const refusal = await beforeUpgrade(nativeVersion / DEXIE_VERSION_FACTOR);
+      if (refusal !== null) return { kind: 'failed', failure: refusal };
     }
     database = new ArchiveDatabase(name);
     await database.open();
