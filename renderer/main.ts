@@ -9,6 +9,7 @@ import { fetchBundledDemo } from './demo/demoArchive.ts';
 import { ComputeClient } from './worker/computeClient.ts';
 import { selectBridge } from './bridge/selectBridge.ts';
 import { backupBeforeUpgrade } from './exchange/preUpgradeBackup.ts';
+import { runStartupBackups } from './exchange/startupBackups.svelte.ts';
 import { ARCHIVE_DATABASE_NAME } from './store/database.ts';
 
 function localStorageOrNull(): Storage | null {
@@ -31,8 +32,11 @@ const archive = new ArchiveState();
 // `?no-demo` opens an empty archive without the demo (tests, and users who want to start blank).
 const loadDemo = !new URLSearchParams(window.location.search).has('no-demo');
 const bridge = selectBridge(window, __APP_VERSION__);
-void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined, backupBeforeUpgrade(ARCHIVE_DATABASE_NAME, bridge));
 const worker = new Worker(new URL('./worker/compute.worker.ts', import.meta.url), { type: 'module' });
 const compute = new ComputeClient(worker);
+void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined, backupBeforeUpgrade(ARCHIVE_DATABASE_NAME, bridge)).then(async () => {
+  // Daily backup, or the offer to restore the newest backup into an empty archive (Exchange view).
+  if (archive.database !== null && (await runStartupBackups(archive.database, compute, bridge))) router.go('exchange');
+});
 
 mount(App, { target, props: { router, themeState, archive, compute, bridge } });
