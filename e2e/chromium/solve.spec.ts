@@ -1,0 +1,57 @@
+import { expect, test } from './fixtures.ts';
+
+// The Solve view on the demo archive (an invented observatory, 24 stars, 5599 transits): a solve
+// with the default model runs in the worker with progress, can be cancelled, is saved, survives a
+// reload, and two saved solves can be compared star by star.
+test('the Solve view runs, cancels, saves and compares joint solves of the demo archive', async ({ page }) => {
+  test.setTimeout(180_000);
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await page.goto('./#/exchange');
+  await expect(page.getByTestId('archive-counts')).toContainText('24 stars · 658 nights · 5599 transits', { timeout: 30_000 });
+  await page.getByRole('tab', { name: 'Solve' }).click();
+  const status = page.getByTestId('solve-status');
+  const run = page.getByRole('button', { name: 'Run solve', exact: true });
+
+  // A run cancelled during the nightly reductions saves nothing.
+  await run.click();
+  await expect(status).toHaveAttribute('data-phase', 'running');
+  await expect(page.getByRole('progressbar', { name: 'Solve progress' })).toBeVisible();
+  await page.getByRole('button', { name: 'Cancel solve', exact: true }).click();
+  await expect(status).toHaveAttribute('data-phase', 'cancelled', { timeout: 30_000 });
+  await expect(status).toContainText('nothing was saved');
+  await expect(page.getByText('No solve saved yet.')).toBeVisible();
+
+  // A full run with the default model.
+  await page.getByLabel('Label for this solve').fill('Defaults');
+  await run.click();
+  await expect(status).toHaveAttribute('data-phase', 'running');
+  await expect(status).toContainText(/Solving: \d+ %/);
+  await expect(status).toHaveAttribute('data-phase', 'finished', { timeout: 120_000 });
+  const results = page.getByTestId('solve-results');
+  await expect(results.getByRole('heading', { name: 'Defaults' })).toBeVisible();
+  await expect(page.getByTestId('solve-star-table').locator('tbody tr')).toHaveCount(24);
+  await expect(page.getByTestId('solve-global')).toContainText(/Δκ\/σ = −?\d+\.\d/);
+  await expect(page.getByTestId('saved-solves').locator('tbody tr')).toHaveCount(1);
+  await page.screenshot({ path: 'e2e-output/screenshots/day-3-solve-results.png', fullPage: true });
+
+  // It survives a reload.
+  await page.reload();
+  await expect(page.getByTestId('saved-solves').getByRole('rowheader', { name: 'Defaults' })).toBeVisible({ timeout: 20_000 });
+
+  // A second solve without parallax, then the two side by side.
+  await page.getByLabel('Label for this solve').fill('No parallax');
+  await page.getByLabel('Parallax', { exact: true }).selectOption('absent');
+  await run.click();
+  await expect(status).toHaveAttribute('data-phase', 'finished', { timeout: 120_000 });
+  await expect(page.getByTestId('saved-solves').locator('tbody tr')).toHaveCount(2);
+  // Newest first: option 1 is "No parallax", option 2 "Defaults" (option 0 is the prompt).
+  await page.getByLabel('First solve').selectOption({ index: 2 });
+  await page.getByLabel('Second solve').selectOption({ index: 1 });
+  await expect(page.getByTestId('compare-summary')).toContainText('Both solves read the same archive files.');
+  await expect(page.getByTestId('compare-summary')).toContainText('Parallax: "free" → "absent"');
+  await expect(page.getByTestId('compare-table').locator('tbody tr')).toHaveCount(24);
+
+  // Night theme, for a person to look at.
+  await page.getByRole('button', { name: 'Night (red)' }).click();
+  await page.screenshot({ path: 'e2e-output/screenshots/night-3-solve-compare.png', fullPage: true });
+});

@@ -1,0 +1,57 @@
+import type { JointModel, TermSetting } from '../../core/joint/joint-model.ts';
+
+/** A JointModel the form edits in place. */
+export type EditableModel = { -readonly [K in keyof JointModel]: JointModel[K] };
+
+type TermKey = { [K in keyof JointModel]: JointModel[K] extends TermSetting ? K : never }[keyof JointModel];
+type NumberKey = { [K in keyof JointModel]: JointModel[K] extends number ? K : never }[keyof JointModel];
+
+/** The model's terms as the form lists them, in the words of the trade, grouped by what they belong to. */
+export const TERM_GROUPS: readonly { readonly title: string; readonly terms: readonly { readonly key: TermKey; readonly label: string }[] }[] = [
+  { title: 'Per star', terms: [
+    { key: 'starPosition', label: 'Position correction at the catalogue epoch' },
+    { key: 'properMotion', label: 'Proper motion' },
+    { key: 'parallax', label: 'Parallax' },
+  ] },
+  { title: 'Common to all observations', terms: [
+    { key: 'deltaKappa', label: 'Aberration constant correction Δκ' },
+    { key: 'flexure', label: 'Flexure (∝ sin z)' },
+    { key: 'refractionScale', label: 'Refraction scale' },
+    { key: 'temperature', label: 'Temperature coefficients' },
+    { key: 'seasonal', label: 'Annual instrument term' },
+  ] },
+  { title: 'Per night', terms: [
+    { key: 'clockOffset', label: 'Clock offset' },
+    { key: 'clockRate', label: 'Clock rate' },
+    { key: 'azimuth', label: 'Azimuth a' },
+    { key: 'level', label: 'Level b' },
+    { key: 'collimation', label: 'Collimation c' },
+    { key: 'zeroPoint', label: 'Zenith-distance zero point' },
+  ] },
+];
+
+/** Stated precisions and settings, with the unit and the range parseJointModel accepts. */
+export const NUMBER_FIELDS: readonly { readonly key: NumberKey; readonly label: string; readonly min: number; readonly max: number; readonly step: number }[] = [
+  { key: 'wireSigmaS', label: 'One wire crossing, σ (s)', min: 1e-6, max: 1, step: 0.001 },
+  { key: 'readingSigmaArcsec', label: 'One zenith-distance reading, σ (″)', min: 1e-6, max: 10, step: 0.01 },
+  { key: 'clockComparisonSigmaS', label: 'One clock comparison, σ (s)', min: 1e-7, max: 1, step: 0.0001 },
+  { key: 'levelSigmaArcsec', label: 'One level reading, σ (″)', min: 1e-6, max: 10, step: 0.01 },
+  { key: 'flexureAprioriArcsec', label: 'Flexure applied before the solve (″)', min: -10, max: 10, step: 0.01 },
+  { key: 'referenceTemperatureC', label: 'Reference temperature (°C)', min: -60, max: 60, step: 0.5 },
+  { key: 'robustIterations', label: 'Robust (Huber) passes', min: 1, max: 50, step: 1 },
+];
+
+export const SETTINGS: readonly TermSetting[] = ['free', 'fixed', 'absent'];
+
+/** Every number of the form that lies outside the range parseJointModel accepts, in words. */
+export function modelProblems(model: JointModel): string[] {
+  return NUMBER_FIELDS.filter((f) => !(Number.isFinite(model[f.key]) && model[f.key] >= f.min && model[f.key] <= f.max))
+    .map((f) => `${f.label} must be a number from ${f.min} to ${f.max} (got ${model[f.key]}).`);
+}
+
+/** The terms that differ between two models, as "Parallax: free → absent" lines. */
+export function modelDifferences(a: JointModel, b: JointModel): string[] {
+  const labels = new Map<string, string>([...TERM_GROUPS.flatMap((g) => g.terms.map((t) => [t.key, t.label] as const)), ...NUMBER_FIELDS.map((f) => [f.key, f.label] as const)]);
+  return [...labels].filter(([key]) => JSON.stringify(a[key as keyof JointModel]) !== JSON.stringify(b[key as keyof JointModel]))
+    .map(([key, label]) => `${label}: ${JSON.stringify(a[key as keyof JointModel])} → ${JSON.stringify(b[key as keyof JointModel])}`);
+}
