@@ -7,6 +7,7 @@ import { CROSS_VALIDATION_FLAG_SIGMA, crossValidateYears, nightYears, withoutYea
 import type { JointModel } from '../../core/joint/joint-model.ts';
 import { prepareArchive, type PreparedArchive } from '../../core/joint/prepare-archive.ts';
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
+import { readSolveInputs } from '../../core/joint/solve-inputs.ts';
 import { modelFor, simulatedInputs, TIME_SCALE } from './joint-helpers.ts';
 
 let prepared: PreparedArchive;
@@ -89,5 +90,40 @@ describe('crossValidateYears', () => {
     expect(cv.years).toEqual([2021, 2022]);
     expect(cv.notes.join(' ')).toMatch(/year 2023 not left out on its own: 5 night\(s\), fewer than 10/);
     expect(() => crossValidateYears(prepared, { ...model, parallax: 'fixed' }, UNCONTROLLED)).toThrow(/set it to "free"/);
+  }, 120_000);
+});
+
+describe('crossValidateYears on a folder with a season-locked level error in one year', () => {
+  it('flags stars, with 2022 as the worst year, when 2022\'s level readings carry an annual 1.5″ wave', async () => {
+    const { archive, files } = await simulatedInputs({ seed: 41, years: 3, starCount: 8, blunderRate: 0, startDate: '2021-01-01' });
+    const text = (path: string) => new TextDecoder().decode(files.get(path));
+    // nights.csv and level-readings.csv as FOLDER.md describes them (header line, plain fields in a simulated folder).
+    const [nightHeader, ...nightRows] = text('nights.csv').trimEnd().split('\n');
+    const nightCols = nightHeader.split(',');
+    const dateOf = new Map(nightRows.map((r) => r.split(',')).map((f) => [f[nightCols.indexOf('id')], f[nightCols.indexOf('localDate')]]));
+    const [levelHeader, ...levelRows] = text('level-readings.csv').trimEnd().split('\n');
+    const cols = levelHeader.split(',');
+    let changed = 0;
+    const edited = levelRows.map((r) => {
+      const f = r.split(',');
+      const date = dateOf.get(f[cols.indexOf('nightId')]);
+      if (date === undefined || !date.startsWith('2022-')) return r;
+      const dayOfYear = (Date.parse(`${date}T00:00:00Z`) - Date.parse('2022-01-01T00:00:00Z')) / 86_400_000;
+      const k = cols.indexOf('levelArcsec');
+      f[k] = String(Number(f[k]) + 1.5 * Math.sin((2 * Math.PI * dayOfYear) / 365.25));
+      changed++;
+      return f.join(',');
+    });
+    expect(changed, 'level readings of 2022 edited').toBeGreaterThan(50);
+    const bad = new Map(files);
+    bad.set('level-readings.csv', new TextEncoder().encode(`${[levelHeader, ...edited].join('\n')}\n`));
+    const { inputs, problems } = readSolveInputs(bad);
+    expect(problems).toEqual([]);
+    const m = modelFor(archive);
+    const cv = crossValidateYears(await prepareArchive(inputs!, m, TIME_SCALE, UNCONTROLLED), m, UNCONTROLLED);
+    console.log(`level wave: ${cv.stars.map((s) => `${s.id} ${s.maxShiftDifferenceSigma!.toFixed(1)}σ (${s.worstYear})`).join(', ')}`);
+    const flagged = cv.stars.filter((s) => s.flagged);
+    expect(flagged.length).toBeGreaterThanOrEqual(2);
+    for (const s of flagged) expect(s.worstYear).toBe(2022);
   }, 120_000);
 });
