@@ -38,20 +38,24 @@ test('the Solve view runs, cancels, saves and compares joint solves of the demo 
   await page.reload();
   await expect(page.getByTestId('saved-solves').getByRole('rowheader', { name: 'Defaults' })).toBeVisible({ timeout: 20_000 });
 
-  // A second solve without parallax, then the two side by side.
-  await page.getByLabel('Label for this solve').fill('No parallax');
-  await page.getByLabel('Parallax', { exact: true }).selectOption('absent');
+  // A second solve with catalogue priors and the temperature term, then the two side by side.
+  await page.getByLabel('Label for this solve').fill('Priors and temperature');
+  await page.getByLabel('Catalogue precision as priors').check();
+  await expect(page.getByLabel('Catalogue position, σ (mas)')).toHaveValue('5');
+  await page.getByLabel('Temperature coefficients').selectOption('free');
   await run.click();
   await expect(status).toHaveAttribute('data-phase', 'finished', { timeout: 120_000 });
   await expect(page.getByTestId('saved-solves').locator('tbody tr')).toHaveCount(2);
-  // Newest first: option 1 is "No parallax", option 2 "Defaults" (option 0 is the prompt).
+  // Newest first: option 1 is the second solve, option 2 "Defaults" (option 0 is the prompt).
   await page.getByLabel('First solve').selectOption({ index: 2 });
   await page.getByLabel('Second solve').selectOption({ index: 1 });
   await expect(page.getByTestId('compare-summary')).toContainText('Both solves read the same archive files.');
-  await expect(page.getByTestId('compare-summary')).toContainText('Parallax: "free" → "absent"');
+  await expect(page.getByTestId('compare-summary')).toContainText('Temperature coefficients: "absent" → "free"');
   await expect(page.getByTestId('compare-table').locator('tbody tr')).toHaveCount(24);
 
   // Night theme, for a person to look at.
   await page.getByRole('button', { name: 'Night (red)' }).click();
   await page.screenshot({ path: 'e2e-output/screenshots/night-3-solve-compare.png', fullPage: true });
+  await page.getByTestId('compare-table').screenshot({ path: 'e2e-output/screenshots/night-3-solve-compare-table.png' });
+  await page.getByTestId('solve-star-table').screenshot({ path: 'e2e-output/screenshots/night-3-solve-star-table.png' });
 });

@@ -46,12 +46,20 @@ export const SETTINGS: readonly TermSetting[] = ['free', 'fixed', 'absent'];
 /** Every number of the form that lies outside the range parseJointModel accepts, in words. */
 export function modelProblems(model: JointModel): string[] {
   return NUMBER_FIELDS.filter((f) => !(Number.isFinite(model[f.key]) && model[f.key] >= f.min && model[f.key] <= f.max))
-    .map((f) => `${f.label} must be a number from ${f.min} to ${f.max} (got ${model[f.key]}).`);
+    .map((f) => `${f.label} must be a number from ${f.min} to ${f.max} (got ${model[f.key]}).`)
+    .concat(catalogueProblems(model));
+}
+
+function catalogueProblems(model: JointModel): string[] {
+  const sigma = model.catalogueSigma.default;
+  if (sigma === null) return [];
+  return [['Catalogue position, σ (mas)', sigma.positionMas], ['Catalogue proper motion, σ (mas/yr)', sigma.pmMasYr] as const]
+    .filter(([, v]) => !(Number.isFinite(v) && Number(v) > 0)).map(([label, v]) => `${label} must be a number above 0 (got ${v}).`);
 }
 
 /** The terms that differ between two models, as "Parallax: free → absent" lines. */
 export function modelDifferences(a: JointModel, b: JointModel): string[] {
-  const labels = new Map<string, string>([...TERM_GROUPS.flatMap((g) => g.terms.map((t) => [t.key, t.label] as const)), ...NUMBER_FIELDS.map((f) => [f.key, f.label] as const)]);
+  const labels = new Map<string, string>([['catalogueSigma', 'Catalogue precision'], ['parallaxPrior', 'Catalogue parallax as a prior'], ...TERM_GROUPS.flatMap((g) => g.terms.map((t) => [t.key, t.label] as const)), ...NUMBER_FIELDS.map((f) => [f.key, f.label] as const)]);
   return [...labels].filter(([key]) => JSON.stringify(a[key as keyof JointModel]) !== JSON.stringify(b[key as keyof JointModel]))
     .map(([key, label]) => `${label}: ${JSON.stringify(a[key as keyof JointModel])} → ${JSON.stringify(b[key as keyof JointModel])}`);
 }

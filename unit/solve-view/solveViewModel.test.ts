@@ -84,3 +84,11 @@ describe('the model form', () => {
     expect(modelDifferences(DEFAULT_JOINT_MODEL, { ...DEFAULT_JOINT_MODEL, parallax: 'absent' })).toEqual(['Parallax: "free" → "absent"']);
   });
 });
+
+describe('modelProblems(model) for the catalogue priors', () => {
+  it('refuses a catalogue σ of zero and names the field; a model with σ priors differs from the default in words', () => {
+    const withPriors = { ...DEFAULT_JOINT_MODEL, catalogueSigma: { default: { positionMas: 0, pmMasYr: 0.7 }, stars: {} } };
+    expect(modelProblems(withPriors)).toEqual(['Catalogue position, σ (mas) must be a number above 0 (got 0).']);
+    expect(modelDifferences(DEFAULT_JOINT_MODEL, withPriors)[0]).toMatch(/^Catalogue precision: \{"default":null/);
+  });
+});
