@@ -70,6 +70,18 @@ test('every plot of a seeded reduction renders the expected number of marks', as
   await expect(page.getByTestId('plot-periodogram')).toHaveAttribute('data-lines', '1');
   await expect(page.getByTestId('plot-periodogram')).toContainText(/annual peak/);
   await expect(page.getByTestId('plot-correlation')).toHaveAttribute('data-cells', String(parameterCount ** 2));
+  await expect(page.getByTestId('plot-residual-periodogram')).toHaveAttribute('data-lines', '1');
+  await expect(page.getByTestId('plot-residual-periodogram')).toContainText(/annual peak/);
+  // Zooming in time (the wheel over the plot) leaves fewer residuals in view; Reset zoom brings them back.
+  const timePlot = page.getByTestId('plot-residuals-time');
+  await timePlot.scrollIntoViewIfNeeded();
+  const stageBox = await timePlot.getByRole('slider').boundingBox();
+  if (stageBox === null) throw new Error('the residual plot has no box');
+  await page.mouse.move(stageBox.x + stageBox.width / 2, stageBox.y + stageBox.height / 2);
+  for (let i = 0; i < 5; i++) await page.mouse.wheel(0, -300);
+  await expect.poll(async () => Number(await timePlot.getAttribute('data-points'))).toBeLessThan(residualCount);
+  await timePlot.getByRole('button', { name: 'Reset zoom' }).click();
+  await expect(timePlot).toHaveAttribute('data-points', String(residualCount));
   // One star only: its own residuals.
   await page.getByLabel('Residuals of').selectOption('ML-001');
   const own = (results.residuals as { starId: string }[]).filter((r) => r.starId === 'ML-001').length;

@@ -5,6 +5,8 @@ import type { PlotColours } from './plotLayout.ts';
 /** Pixel size of one heat-map cell and the room left for the parameter names. */
 export const HEAT_CELL_PX = 9;
 export const HEAT_LABEL_PX = 130;
+/** Cells with a correlation at or below −this carry a dot, so the sign reads even in the one-hue night theme. */
+export const NEGATIVE_MARK_FROM = 0.2;
 
 const escape = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
@@ -24,6 +26,7 @@ export function heatMapSvg(correlation: CorrelationMatrix, palette: HeatPalette,
   });
   correlation.matrix.forEach((row, i) => row.forEach((r, j) => {
     parts.push(`<rect x="${HEAT_LABEL_PX + j * HEAT_CELL_PX}" y="${HEAT_LABEL_PX + i * HEAT_CELL_PX}" width="${HEAT_CELL_PX}" height="${HEAT_CELL_PX}" fill="${correlationColour(r, palette)}" data-r="${r}"><title>${escape(`${correlation.names[i]} × ${correlation.names[j]}: ${r.toFixed(3)}`)}</title></rect>`);
+    if (r <= -NEGATIVE_MARK_FROM) parts.push(`<circle cx="${HEAT_LABEL_PX + (j + 0.5) * HEAT_CELL_PX}" cy="${HEAT_LABEL_PX + (i + 0.5) * HEAT_CELL_PX}" r="${HEAT_CELL_PX / 5}" fill="${colours.background}"/>`);
   }));
   parts.push('</svg>');
   return parts.join('\n');
