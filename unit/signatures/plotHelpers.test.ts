@@ -3,6 +3,8 @@ import { trueLongitude } from 'astronomia/solar';
 import { dayOfYearFromMjd, mjdFromTtDays, paddedExtent, symmetricExtent } from '../../renderer/signatures/plotScales.ts';
 import { fitAnnual, parallaxEllipsePoints, YEAR_DAYS } from '../../renderer/signatures/parallaxEllipse.ts';
 import { correlationColour, parseColour } from '../../renderer/signatures/heatColour.ts';
+import { hashForNight, nightIdFromHash } from '../../renderer/signatures/nightLink.ts';
+import { viewFromHash } from '../../renderer/navigation/views.ts';
 
 describe('plot scales', () => {
   it('paddedExtent([0, 10]) widens by 5 % each side and ignores NaN', () => {
@@ -85,5 +87,22 @@ describe('heat-map colours', () => {
   it('parseColour names a colour it cannot read', () => {
     expect(parseColour('#abc')).toEqual({ red: 0xaa, green: 0xbb, blue: 0xcc });
     expect(() => parseColour('oklch(0.5 0.1 30)')).toThrow(/not #rgb/);
+  });
+});
+
+describe('night links', () => {
+  it('hashForNight → nightIdFromHash round-trips an id with reserved characters', () => {
+    const id = 'night 2021/01?04&x';
+    expect(hashForNight(id)).toMatch(/^#\/archive\?night=/);
+    expect(nightIdFromHash(hashForNight(id))).toBe(id);
+  });
+  it('nightIdFromHash gives null for other views and for an Archive hash without a night', () => {
+    expect(nightIdFromHash('#/signatures?night=n1')).toBeNull();
+    expect(nightIdFromHash('#/archive')).toBeNull();
+    expect(nightIdFromHash('#/archive?night=')).toBeNull();
+    expect(() => hashForNight('')).toThrow(/night id is empty/);
+  });
+  it('the router still reads the view from a night link (viewFromHash)', () => {
+    expect(viewFromHash(hashForNight('night-2021-01-04'))).toBe('archive');
   });
 });
