@@ -36,19 +36,22 @@ export const INSTRUMENT_COLUMNS: readonly ExportColumn<InstrumentRecord>[] = [
 /**
  * The programme stars in the star-list layout of core/formats/star-list.ts (FORMATS.md), so the
  * file reads back through the star-list import; `archiveId` is added last (the import ignores it
- * with a warning). A parallax error or radial velocity of 0 is the records' "unknown" and is
- * written as an empty cell, as the star list means it.
+ * with a warning). Unknowns are written as empty cells, as the star list means them: a proper
+ * motion, parallax or parallax error of NaN (the star import's "unknown", never zero), and a
+ * parallax error or radial velocity of 0 (records.ts's "unknown").
  */
+const nanIsUnknown = (value: number): number | null => (Number.isNaN(value) ? null : value);
+
 export const STAR_COLUMNS: readonly ExportColumn<StarRecord>[] = [
   text('id', "the user's id for the star", (s) => s.catalogueId),
   text('label', 'star name', (s) => s.label),
   double('raDeg', 'deg', 'ICRS right ascension at epochJyear', (s) => s.raDeg, 'pos.eq.ra;meta.main'),
   double('decDeg', 'deg', 'ICRS declination at epochJyear', (s) => s.decDeg, 'pos.eq.dec;meta.main'),
   double('epochJyear', 'yr', 'epoch of the position, Julian year (TDB)', (s) => s.catalogueEpochJulianYear, 'time.epoch'),
-  double('pmRaCosDecMasYr', 'mas/yr', 'proper motion in right ascension times cos(dec)', (s) => s.pmRaMasYr, 'pos.pm;pos.eq.ra'),
-  double('pmDecMasYr', 'mas/yr', 'proper motion in declination', (s) => s.pmDecMasYr, 'pos.pm;pos.eq.dec'),
-  double('parallaxMas', 'mas', 'annual parallax', (s) => s.parallaxMas, 'pos.parallax'),
-  double('parallaxSigmaMas', 'mas', 'standard uncertainty of the parallax; empty if unknown', (s) => (s.parallaxErrorMas === 0 ? null : s.parallaxErrorMas), 'stat.error;pos.parallax'),
+  double('pmRaCosDecMasYr', 'mas/yr', 'proper motion in right ascension times cos(dec)', (s) => nanIsUnknown(s.pmRaMasYr), 'pos.pm;pos.eq.ra'),
+  double('pmDecMasYr', 'mas/yr', 'proper motion in declination', (s) => nanIsUnknown(s.pmDecMasYr), 'pos.pm;pos.eq.dec'),
+  double('parallaxMas', 'mas', 'annual parallax', (s) => nanIsUnknown(s.parallaxMas), 'pos.parallax'),
+  double('parallaxSigmaMas', 'mas', 'standard uncertainty of the parallax; empty if unknown', (s) => (s.parallaxErrorMas === 0 ? null : nanIsUnknown(s.parallaxErrorMas)), 'stat.error;pos.parallax'),
   double('radialVelocityKmS', 'km/s', 'radial velocity, receding positive; empty if unknown', (s) => (s.radialVelocityKmS === 0 ? null : s.radialVelocityKmS), 'spect.dopplerVeloc'),
   double('magnitude', 'mag', 'magnitude; empty if unknown', (s) => s.magnitude, 'phot.mag'),
   text('source', 'where the place came from', (s) => s.source),

@@ -43,6 +43,12 @@ describe('archiveTableCsv(stars) reads back through the star-list parser (core/f
     expect(two.source).toBe('line\nbreak');
   });
 
+  it("writes the star import's NaN (unknown) as empty cells that read back as null", () => {
+    const unknown = { ...STARS[0], pmRaMasYr: Number.NaN, pmDecMasYr: Number.NaN, parallaxMas: Number.NaN, parallaxErrorMas: Number.NaN };
+    const [row] = parseStarList(encodeUtf8(archiveTableCsv('stars', [unknown])), 'stars.csv').rows;
+    expect([row.pmRaCosDecMasYr, row.pmDecMasYr, row.parallaxMas, row.parallaxSigmaMas]).toEqual([null, null, null, null]);
+  });
+
   it('is RFC 4180: CRLF after every record, the quoted line break kept inside its field', () => {
     const csv = archiveTableCsv('stars', STARS);
     expect(csv.endsWith('\r\n')).toBe(true);
