@@ -37,6 +37,9 @@ test('the Solve view runs, cancels, saves and compares joint solves of the demo 
   // It survives a reload.
   await page.reload();
   await expect(page.getByTestId('saved-solves').getByRole('rowheader', { name: 'Defaults' })).toBeVisible({ timeout: 20_000 });
+  await page.getByRole('button', { name: 'Show Defaults', exact: true }).click();
+  await expect(page.getByTestId('solve-inputs-state')).toHaveAttribute('data-state', 'unchanged', { timeout: 30_000 });
+  await expect(page.getByTestId('solve-star-table').locator('tbody tr')).toHaveCount(24);
 
   // A second solve with catalogue priors and the temperature term, then the two side by side.
   await page.getByLabel('Label for this solve').fill('Priors and temperature');
@@ -51,6 +54,7 @@ test('the Solve view runs, cancels, saves and compares joint solves of the demo 
   await page.getByLabel('Second solve').selectOption({ index: 1 });
   await expect(page.getByTestId('compare-summary')).toContainText('Both solves read the same archive files.');
   await expect(page.getByTestId('compare-summary')).toContainText('Temperature coefficients: "absent" → "free"');
+  await expect(page.getByTestId('compare-summary')).toContainText('Catalogue precision: none → 5 mas and 0.7 mas/yr');
   await expect(page.getByTestId('compare-table').locator('tbody tr')).toHaveCount(24);
 
   // Night theme, for a person to look at.

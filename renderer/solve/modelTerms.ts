@@ -61,5 +61,13 @@ function catalogueProblems(model: JointModel): string[] {
 export function modelDifferences(a: JointModel, b: JointModel): string[] {
   const labels = new Map<string, string>([['catalogueSigma', 'Catalogue precision'], ['parallaxPrior', 'Catalogue parallax as a prior'], ...TERM_GROUPS.flatMap((g) => g.terms.map((t) => [t.key, t.label] as const)), ...NUMBER_FIELDS.map((f) => [f.key, f.label] as const)]);
   return [...labels].filter(([key]) => JSON.stringify(a[key as keyof JointModel]) !== JSON.stringify(b[key as keyof JointModel]))
-    .map(([key, label]) => `${label}: ${JSON.stringify(a[key as keyof JointModel])} → ${JSON.stringify(b[key as keyof JointModel])}`);
+    .map(([key, label]) => `${label}: ${describeValue(a[key as keyof JointModel])} → ${describeValue(b[key as keyof JointModel])}`);
+}
+
+function describeValue(value: JointModel[keyof JointModel]): string {
+  if (typeof value !== 'object' || value === null) return JSON.stringify(value);
+  const sigma = (value as JointModel['catalogueSigma']).default;
+  const perStar = Object.keys((value as JointModel['catalogueSigma']).stars).length;
+  const base = sigma === null ? 'none' : `${sigma.positionMas} mas and ${sigma.pmMasYr} mas/yr`;
+  return perStar > 0 ? `${base} (${perStar} stars with their own)` : base;
 }

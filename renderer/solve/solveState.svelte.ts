@@ -20,6 +20,8 @@ export class SolveState {
   total = $state(0);
   message = $state('');
   shownId = $state<string | null>(null);
+  /** Whether the archive still holds what the shown solve read: checked in the worker on show. */
+  shownInputs = $state<'checking' | 'unchanged' | 'changed' | 'unknown'>('unknown');
   /** Set after a re-run whose archive files differ from the saved solve's. */
   fingerprintWarning = $state('');
 
@@ -67,6 +69,21 @@ export class SolveState {
     this.phase = 'finished';
     await this.refresh();
     this.shownId = saved.id;
+    this.shownInputs = 'unchanged';
+  }
+
+  /** Shows a saved solve and checks in the worker whether the archive files it read are unchanged. */
+  async show(id: string): Promise<void> {
+    this.shownId = id;
+    const record = this.shown;
+    if (record === null) return;
+    this.shownInputs = 'checking';
+    const selection = (record.modelConfiguration as { selection?: SolveSelection }).selection;
+    if (selection === undefined) return void (this.shownInputs = 'unknown');
+    const outcome = await this.#compute.run({ kind: 'solve-fingerprint', databaseName: this.#database.name, selection }).outcome;
+    if (this.shownId !== id) return;
+    this.shownInputs = outcome.kind === 'finished' && outcome.result.kind === 'solve-fingerprint'
+      ? (outcome.result.fingerprint === record.inputFingerprint ? 'unchanged' : 'changed') : 'unknown';
   }
 
   cancel(): void {
