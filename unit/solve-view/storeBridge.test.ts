@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readArchiveFolder } from '../../core/archive-folder/archive-folder.ts';
 import { DEFAULT_JOINT_MODEL } from '../../core/joint/joint-model.ts';
-import { UNCONTROLLED } from '../../core/task/task-control.ts';
+import { TaskCancelledError, UNCONTROLLED } from '../../core/task/task-control.ts';
 import { readArchiveFolderFiles } from '../../main/archive/archive-folder-files.ts';
 import { folderFingerprint } from '../../renderer/solve/folderFingerprint.ts';
 import { WHOLE_ARCHIVE } from '../../renderer/solve/solveSelection.ts';
@@ -91,4 +91,19 @@ describe('folderFingerprint(files)', () => {
     expect((await solveInputsFromStore(database, WHOLE_ARCHIVE)).fingerprint).not.toBe(first);
     database.close();
   });
+});
+
+describe('runJointSolve(request, control) cancelled', () => {
+  const request = () => ({ kind: 'joint-solve' as const, databaseName, label: 'cancelled', model: DEFAULT_JOINT_MODEL, selection: WHOLE_ARCHIVE, codeVersion: 'test' });
+  const controlCancellingAt = (threshold: number) => {
+    const cancellation = { isCancelled: false };
+    return { cancellation, reportProgress: (done: number) => { if (done >= threshold) cancellation.isCancelled = true; }, yieldToHost: () => Promise.resolve() };
+  };
+  it.each([['during the nightly reductions', 100], ['during the joint passes', 750]])('%s: throws TaskCancelledError and saves nothing', async (_when, threshold) => {
+    const database = new ArchiveDatabase(databaseName);
+    const before = await database.reductions.count();
+    await expect(runJointSolve(request(), controlCancellingAt(threshold))).rejects.toBeInstanceOf(TaskCancelledError);
+    expect(await database.reductions.count()).toBe(before);
+    database.close();
+  }, 60_000);
 });

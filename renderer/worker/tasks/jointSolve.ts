@@ -1,10 +1,12 @@
 import type { ReductionRecord } from '../../../core/archive/records.ts';
 import { encodeFolderFiles, writeArchiveFolder } from '../../../core/archive-folder/archive-folder.ts';
 import type { JointModel } from '../../../core/joint/joint-model.ts';
-import { solveArchive } from '../../../core/joint/solve-archive.ts';
+import { prepareArchive } from '../../../core/joint/prepare-archive.ts';
+import { solvePrepared, type ArchiveSolveResult } from '../../../core/joint/solve-archive.ts';
+import { SolveCancelled } from '../../../core/solver/index.ts';
 import { readSolveInputs } from '../../../core/joint/solve-inputs.ts';
 import { observationResiduals } from '../../../core/joint/solve-outputs.ts';
-import type { TaskControl } from '../../../core/task/task-control.ts';
+import { TaskCancelledError, type TaskControl } from '../../../core/task/task-control.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../../core/time/timescale.ts';
 import { folderFingerprint } from '../../solve/folderFingerprint.ts';
@@ -41,11 +43,17 @@ export async function solveInputsFromStore(database: ArchiveDatabase, selection:
   return { inputs, files, fingerprint: folderFingerprint(files) };
 }
 
+async function honourCancel(control: TaskControl, done: number): Promise<void> {
+  await control.yieldToHost();
+  if (control.cancellation.isCancelled) throw new TaskCancelledError('the joint solve', done);
+}
+
 /**
  * The joint solve of the stored archive in the worker (core/joint/solve-archive.ts with the
  * bundled leap seconds, as the CLI runs it), saved as a ReductionRecord whose results have the
  * shape of `solve --json` and whose residuals are one row per transit. Cancel is seen between
- * nights of the nightly reductions; the joint passes themselves run to the end once started.
+ * nights of the nightly reductions; the joint passes are synchronous, so a cancel sent while they
+ * run is honoured when they end, before anything is saved.
  */
 export async function runJointSolve(request: JointSolveRequest, control: TaskControl): Promise<JointSolveResult> {
   const database = new ArchiveDatabase(request.databaseName);
@@ -55,10 +63,20 @@ export async function runJointSolve(request: JointSolveRequest, control: TaskCon
       ...control,
       reportProgress: (done, total) => control.reportProgress(Math.round((NIGHTLY_SHARE * done) / Math.max(total, 1)), SOLVE_PROGRESS_TOTAL),
     };
-    const result = await solveArchive(inputs, request.model, new TimeScale(BUNDLED_LEAP_SECONDS), nightly, (p) => {
-      const share = Math.min(1, (p.iteration - 1 + p.fraction) / Math.max(p.iterationLimit, 1));
-      control.reportProgress(NIGHTLY_SHARE + Math.round((SOLVE_PROGRESS_TOTAL - NIGHTLY_SHARE) * share), SOLVE_PROGRESS_TOTAL);
-    });
+    const prepared = await prepareArchive(inputs, request.model, new TimeScale(BUNDLED_LEAP_SECONDS), nightly);
+    await honourCancel(control, NIGHTLY_SHARE);
+    let result: ArchiveSolveResult;
+    try {
+      result = solvePrepared(prepared, request.model, control, (p) => {
+        const share = Math.min(1, (p.iteration - 1 + p.fraction) / Math.max(p.iterationLimit, 1));
+        control.reportProgress(NIGHTLY_SHARE + Math.round((SOLVE_PROGRESS_TOTAL - NIGHTLY_SHARE) * share), SOLVE_PROGRESS_TOTAL);
+      });
+    } catch (error) {
+      if (error instanceof SolveCancelled) throw new TaskCancelledError('the joint solve', NIGHTLY_SHARE);
+      throw error;
+    }
+    // A cancel sent during the synchronous joint passes is only read now: honour it, save nothing.
+    await honourCancel(control, SOLVE_PROGRESS_TOTAL);
     const now = nowUtcIso();
     const reduction: ReductionRecord = {
       id: crypto.randomUUID(), label: request.label,
