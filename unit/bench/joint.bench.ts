@@ -18,6 +18,12 @@ import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../core/time/timescale.ts';
 import { DEG } from '../../core/units.ts';
+import { iauEarthOrientation } from '../../core/astrometry/iau-earth-orientation.ts';
+import { starMotion } from '../../core/astrometry/space-motion.ts';
+import { predictTransit } from '../../core/astrometry/transit.ts';
+import { catalogueStarOf, NightPredictions } from '../../core/reduction/star-predictions.ts';
+import type { SolveInputs } from '../../core/joint/solve-inputs.ts';
+import { utcCountS } from '../../core/formats/utc-instant.ts';
 
 interface Size { readonly label: string; readonly request: SimulationRequest }
 
@@ -40,6 +46,7 @@ async function measure(size: Size): Promise<Timing> {
   const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS);
   const [{ inputs }, parseS] = await timed(() => readSolveInputs(files));
   if (inputs === null) throw new Error(`${size.label}: the simulated folder is not readable`);
+  if (size.label === '10k') console.log(`   ${comparePredictions(inputs, timeScale, 60)}`);
   const model: JointModel = { ...DEFAULT_JOINT_MODEL, flexureAprioriArcsec: 0 };
   const [reduced, nightlyS] = await timed(() => reduceArchive(inputs, model, timeScale, UNCONTROLLED));
   const s = inputs.site.site;
@@ -55,6 +62,38 @@ async function measure(size: Size): Promise<Timing> {
     transits: reduced.observations.length, nights: reduced.nights.length, parseS, nightlyS, factorsS, buildS, solveS, passes: solution.iterations,
     outputsS, totalS: parseS + nightlyS + factorsS + wholeS, peakRssMb: process.resourceUsage().maxRSS / 1024,
   };
+}
+
+/**
+ * The nightly step's predictions before and after the batch-context change, interleaved night by
+ * night so that machine load hits both alike: predictTransit per star (the former NightPredictions)
+ * against NightPredictions.nearest, for every transit of the first `nightCount` nights.
+ */
+function comparePredictions(inputs: SolveInputs, timeScale: TimeScale, nightCount: number): string {
+  const s = inputs.site.site;
+  const site: Site = { latitudeRad: s.latitudeDeg * DEG, longitudeRad: s.longitudeDeg * DEG, heightM: s.heightM };
+  const instantFromUtc = (utc: { jd1: number; jd2: number }) => timeScale.fromUtc(utc);
+  const starById = new Map(inputs.stars.map((x) => [x.id, x]));
+  const nights = [...new Set(inputs.transits.map((t) => t.nightDateMjd))].slice(0, nightCount);
+  let before = 0, after = 0, count = 0, fallbacks = 0;
+  for (const mjd of nights) {
+    const rows = inputs.transits.filter((t) => t.nightDateMjd === mjd && starById.has(t.starId) && t.times.wires.length > 0);
+    // The first wire's time as the rough time (within the clock error of the transit, as the reduction's).
+    const rough = rows.map((t) => (t.times.kind === 'clock' ? t.times.wires[0].clockS : utcCountS(t.times.wires[0].utc) - mjd! * 86_400));
+    let start = performance.now();
+    rows.forEach((t, i) => {
+      const motion = starMotion(catalogueStarOf(starById.get(t.starId)!));
+      predictTransit(motion, site, null, { jd1: 2_400_000.5 + mjd!, jd2: (rough[i] - 43_082.045) / 86_400 }, t.culmination, instantFromUtc, iauEarthOrientation);
+    });
+    before += performance.now() - start;
+    start = performance.now();
+    const predictions = new NightPredictions(site, mjd!, instantFromUtc);
+    rows.forEach((t, i) => predictions.nearest(starById.get(t.starId)!, t.culmination, rough[i]));
+    after += performance.now() - start;
+    fallbacks += predictions.fullSearchCount;
+    count += rows.length;
+  }
+  return `predictions on ${nights.length} nights (${count}): predictTransit per star ${(before / count).toFixed(3)} ms, night context ${(after / count).toFixed(3)} ms each, ×${(before / after).toFixed(1)} faster, ${fallbacks} full-search fallbacks`;
 }
 
 export async function run(): Promise<void> {
