@@ -62,6 +62,7 @@ async function openSignatures(page: Page): Promise<void> {
 test('every plot of a seeded reduction renders the expected number of marks', async ({ page }) => {
   await openSignatures(page);
   await expect(page.getByTestId('plot-annual-dial')).toHaveAttribute('data-points', String(starCount));
+  await expect(page.getByTestId('plot-annual-dial')).toHaveAttribute('data-lines', '2'); // the axes through the origin
   await expect(page.getByTestId('plot-residuals-time')).toHaveAttribute('data-points', String(residualCount));
   await expect(page.getByTestId('plot-residuals-season')).toHaveAttribute('data-points', String(residualCount));
   await expect(page.getByTestId('plot-common-mode-time')).toHaveAttribute('data-points', String(nightCount));

@@ -68,6 +68,8 @@ export function dialPlot(stars: readonly StarSignature[]): PlotModel {
   return {
     ...base, id: 'annual-dial', title: 'Annual signal of each star: parallax phase against aberration phase',
     xLabel: 'parallax-phase amplitude (mas)', yLabel: 'aberration-phase amplitude (mas)', xDomain: span, yDomain: span, equalAspect: true, points,
+    // The axes through the origin: zero parallax and the adopted aberration constant (Δκ = 0).
+    lines: [{ points: [[span[0], 0], [span[1], 0]], tone: 'muted', label: 'Δκ = 0' }, { points: [[0, span[0]], [0, span[1]]], tone: 'muted', label: 'ϖ = 0' }],
     note: 'A star’s parallax lies along x; a common aberration error moves every star up or down together; an unmodelled instrument term scatters stars off both.',
   };
 }
