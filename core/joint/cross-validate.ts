@@ -3,7 +3,7 @@ import { mjdToCalendarDay } from '../time/julian-date.ts';
 import type { JointModel } from './joint-model.ts';
 import type { JointNight, JointObservation } from './joint-observations.ts';
 import { checkSolvable, JointSolveRefused, type PreparedArchive } from './prepare-archive.ts';
-import { solvePrepared, type StarResult } from './solve-archive.ts';
+import { solveProblem, starResults, type StarResult } from './solve-archive.ts';
 
 /** A shift beyond this many σ of the fold-minus-full difference flags the star (common practice: 3σ). */
 export const CROSS_VALIDATION_FLAG_SIGMA = 3;
@@ -117,7 +117,9 @@ export function crossValidateYears(prepared: PreparedArchive, model: JointModel,
     return c >= minNights;
   }).map(([y]) => y);
   if (eligible.length < 2) throw new JointSolveRefused(`cross-validation needs at least two calendar years of ${minNights} or more nights; the archive has ${[...counts].map(([y, c]) => `${y}: ${c}`).join(', ')}`);
-  const full = solvePrepared(prepared, model, control);
+  // Only the star results are needed: the solver run without solvePrepared's outputs (correlation, signatures).
+  const solveStars = (p: PreparedArchive): StarResult[] => { const { layout, solution } = solveProblem(p, model, control); return starResults(solution, layout, p.stars, p.observations); };
+  const full = { stars: solveStars(prepared) };
   const foldsByStar = new Map(full.stars.map((s) => [s.id, [] as ParallaxFold[]]));
   const solved: number[] = [];
   eligible.forEach((year, i) => {
@@ -127,8 +129,7 @@ export function crossValidateYears(prepared: PreparedArchive, model: JointModel,
       notes.push(`fold without ${year} not solved: ${error.message}`);
       return;
     }
-    const result = solvePrepared(subset, model, control);
-    const byId = new Map(result.stars.map((s) => [s.id, s]));
+    const byId = new Map(solveStars(subset).map((s) => [s.id, s]));
     for (const star of full.stars) foldsByStar.get(star.id)!.push(foldOf(year, star, byId.get(star.id)));
     solved.push(year);
     options.onFold?.(year, i + 1, eligible.length);

@@ -60,17 +60,21 @@ export async function solveArchive(inputs: SolveInputs, model: JointModel, timeS
   return solvePrepared(await prepareArchive(inputs, model, timeScale, control), model, control, onSolveProgress);
 }
 
-/** The joint solve of an already prepared archive (prepare-archive.ts) under `model`; see solveArchive. */
-export function solvePrepared(prepared: PreparedArchive, model: JointModel, control: TaskControl, onSolveProgress?: (p: SolveProgress) => void): ArchiveSolveResult {
-  const { stars: catalogue, nights, observations } = prepared;
-  const { problem, layout } = buildJointProblem(model, catalogue, nights, observations);
+/** The solver run of one model on a prepared archive: the problem, its layout and the solution (no outputs). */
+export function solveProblem(prepared: PreparedArchive, model: JointModel, control: TaskControl, onSolveProgress?: (p: SolveProgress) => void): { layout: JointLayout; solution: JointSolution } {
+  const { problem, layout } = buildJointProblem(model, prepared.stars, prepared.nights, prepared.observations);
   const solution = jointSolve(problem, {
     robust: model.robustIterations > 1 ? { maxIterations: model.robustIterations } : false,
     onProgress: onSolveProgress, cancel: { get cancelled() { return control.cancellation.isCancelled; } },
   });
+  return { layout, solution };
+}
+
+/** Each observed star's absolute parallax, proper motion and position corrections with σ (catalogue + correction). */
+export function starResults(solution: JointSolution, layout: JointLayout, catalogue: PreparedArchive['stars'], observations: readonly JointObservation[]): StarResult[] {
   const counts = new Int32Array(catalogue.length);
   for (const o of observations) counts[o.star]++;
-  const stars: StarResult[] = catalogue.map((star, i) => {
+  return catalogue.map((star, i) => {
     const l = layout.star[i];
     const [dp, sp] = value(solution, l.parallax), [da, sa] = value(solution, l.pmRa), [dd, sd] = value(solution, l.pmDec);
     const [ra, sra] = value(solution, l.ra), [de, sde] = value(solution, l.dec);
@@ -82,6 +86,13 @@ export function solvePrepared(prepared: PreparedArchive, model: JointModel, cont
       deltaRaMas: ra, deltaRaSigmaMas: sra, deltaDecMas: de, deltaDecSigmaMas: sde,
     };
   }).filter((r) => r.observations > 0);
+}
+
+/** The joint solve of an already prepared archive (prepare-archive.ts) under `model`; see solveArchive. */
+export function solvePrepared(prepared: PreparedArchive, model: JointModel, control: TaskControl, onSolveProgress?: (p: SolveProgress) => void): ArchiveSolveResult {
+  const { stars: catalogue, nights, observations } = prepared;
+  const { layout, solution } = solveProblem(prepared, model, control, onSolveProgress);
+  const stars = starResults(solution, layout, catalogue, observations);
   const [dk, sk] = value(solution, layout.deltaKappa, 1e-3);
   const [f, sf] = value(solution, layout.flexure, 1e-3);
   const [tr, str] = value(solution, layout.temperatureRa, 1e-3), [td, std] = value(solution, layout.temperatureDec, 1e-3);
