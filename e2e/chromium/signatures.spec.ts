@@ -87,6 +87,13 @@ test('every plot of a seeded reduction renders the expected number of marks', as
   await page.getByLabel('Residuals of').selectOption('ML-001');
   const own = (results.residuals as { starId: string }[]).filter((r) => r.starId === 'ML-001').length;
   await expect(page.getByTestId('plot-residuals-time')).toHaveAttribute('data-points', String(own));
+  // The heat map reads by keyboard too: focus, then the arrow keys move between cells.
+  const names = (results.correlation as { names: string[]; matrix: number[][] });
+  const heat = page.getByTestId('plot-correlation');
+  await heat.getByRole('slider').focus();
+  await page.keyboard.press('ArrowRight');
+  await page.keyboard.press('ArrowRight');
+  await expect(heat).toContainText(`${names.names[0]} × ${names.names[1]}: ${names.matrix[0][1].toFixed(3)}`);
 });
 
 test('hovering a residual identifies the observation and clicking opens its night in the Archive', async ({ page }) => {
