@@ -1,4 +1,5 @@
 import { expect, test } from './fixtures.ts';
+import { findNonRedColours, scanScreenshot } from './nightColours.ts';
 
 // The Solve view on the demo archive (an invented observatory, 24 stars, 5599 transits): a solve
 // with the default model runs in the worker with progress, can be cancelled, is saved, survives a
@@ -59,6 +60,9 @@ test('the Solve view runs, cancels, saves and compares joint solves of the demo 
 
   // Night theme, for a person to look at.
   await page.getByRole('button', { name: 'Night (red)' }).click();
+  // The palette check of theme.spec.ts, here over the results, the saved list and the comparison.
+  expect(await findNonRedColours(page, 0), 'computed colours in the Solve view with results').toEqual([]);
+  expect((await scanScreenshot(page, await page.screenshot({ fullPage: true }), 4)).offending, 'pixels with green or blue').toBe(0);
   await page.screenshot({ path: 'e2e-output/screenshots/night-3-solve-compare.png', fullPage: true });
   await page.getByTestId('compare-table').screenshot({ path: 'e2e-output/screenshots/night-3-solve-compare-table.png' });
   await page.getByTestId('solve-star-table').screenshot({ path: 'e2e-output/screenshots/night-3-solve-star-table.png' });
