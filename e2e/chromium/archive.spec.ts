@@ -103,3 +103,10 @@ test('screenshots of the Archive with the demo, day and night; night shows no gr
   await page.screenshot({ path: 'e2e-output/screenshots/night-archive-demo.png', fullPage: true });
   expect(await findNonRedColours(page, 0)).toEqual([]);
 });
+
+test('an address #/archive?night=ID (a plot click-through) opens that night', async ({ page }) => {
+  await page.goto('./#/archive?night=night-2020-11-03');
+  await expect(page.getByRole('heading', { name: /^Night of 2020-11-03/ })).toBeVisible({ timeout: 20_000 });
+  await page.evaluate(() => (window.location.hash = '#/archive?night=night-2022-01-12'));
+  await expect(page.getByRole('heading', { name: /^Night of 2022-01-12/ })).toBeVisible();
+});
