@@ -1,0 +1,161 @@
+// `npm run bench:import`: the archive at scale in headless Chromium, through the real app (the
+// Exchange view's import, export and restore, each a worker task). Prints figures; asserts none.
+// BENCH_TRANSITS sets the size (default 1,000,000); below 1,000,000 the extrapolated figures are
+// printed and labelled as such. Builds nothing: run `npm run build:renderer` first (the script does).
+// Invented scenario: no real site, instrument or star.
+import { mkdtemp, rm } from 'node:fs/promises';
+import { createWriteStream } from 'node:fs';
+import { once } from 'node:events';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type Page } from '@playwright/test';
+import { preview } from 'vite';
+import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE } from '../../playwright.config.ts';
+
+const TARGET = 1_000_000;
+const TRANSITS = Number(process.env.BENCH_TRANSITS ?? TARGET);
+// 100 stars: each has 10,000 transits (the range query's size) at 1,000,000, fewer at a smaller BENCH_TRANSITS.
+const STARS = 100;
+const NIGHTS = Math.ceil(TRANSITS / STARS);
+const PORT = Number(process.env.BENCH_PORT ?? 4397);
+const QUERY_REPEATS = 20;
+
+const SITE = JSON.stringify({
+  formatVersion: 1,
+  site: { id: 'bench-hill', label: 'Bench Hill pier (invented)', latitudeDeg: 47.5, longitudeDeg: 11.25, heightM: 700 },
+  instruments: [{ id: 'bt-1', label: 'Bench transit 1', kind: 'transit', zenithScale: { unit: 'turn', arcsecPerUnit: 48.77, sense: -1 },
+    wireIntervalsS: [15.2, 0, -15.1], effectiveWavelengthUm: 0.6, clockId: 'clock-b', clockTimeScale: 'sidereal', events: [] }],
+});
+
+function starList(): string {
+  const lines = ['id,label,raDeg,decDeg,epochJyear,pmRaCosDecMasYr,pmDecMasYr,parallaxMas'];
+  for (let s = 0; s < STARS; s++) lines.push(`B${String(s).padStart(3, '0')},Bench star ${s},${(s * 3.6).toFixed(1)},${(30 + (s % 40)).toFixed(1)},2016.0,1.5,-2.5,3.25`);
+  return `${lines.join('\n')}\n`;
+}
+
+/** The transit log: STARS stars on each of NIGHTS nights, star s crossing at 18h + s·3 min (streamed to disk). */
+async function writeTransitLog(file: string): Promise<void> {
+  const out = createWriteStream(file);
+  out.write('starId,culmination,nightDate,instrumentId,wire1Utc,wire2Utc,wire3Utc,micrometerTurns\n');
+  let written = 0;
+  for (let night = 0; night < NIGHTS && written < TRANSITS; night++) {
+    const iso = new Date(Date.UTC(2000, 0, 1 + night)).toISOString().slice(0, 10);
+    const chunk: string[] = [];
+    for (let s = 0; s < STARS && written < TRANSITS; s++, written++) {
+      const minute = 18 * 60 + s * 3; // ≤ 22:57 for 100 stars
+      const hhmm = `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
+      chunk.push(`B${String(s).padStart(3, '0')},upper,${iso},bt-1,${iso}T${hhmm}:10.10Z,${iso}T${hhmm}:25.30Z,${iso}T${hhmm}:40.40Z,${(12 + (s % 7) * 0.1).toFixed(3)}`);
+    }
+    if (!out.write(`${chunk.join('\n')}\n`)) await once(out, 'drain');
+  }
+  out.end();
+  await once(out, 'finish');
+}
+
+async function importFile(page: Page, file: string | { name: string; text: string }): Promise<{ ms: number; message: string }> {
+  const chooser = page.waitForEvent('filechooser');
+  await page.getByRole('button', { name: 'Choose a file to import…' }).click();
+  await (await chooser).setFiles(typeof file === 'string' ? file : { name: file.name, mimeType: 'text/plain', buffer: Buffer.from(file.text) });
+  const importButton = page.getByRole('button', { name: /^Import (all|only the)/ });
+  await importButton.waitFor({ timeout: 3_600_000 });
+  const rejected = await page.getByTestId('rejected-count').innerText();
+  if (rejected !== '0') throw new Error(`${typeof file === 'string' ? file : file.name}: ${rejected} generated rows were rejected; fix the generator`);
+  const started = performance.now();
+  await importButton.click();
+  const name = typeof file === 'string' ? path.basename(file) : file.name;
+  const message = page.getByTestId('import-message').filter({ hasText: `Imported ${name}` });
+  await message.waitFor({ timeout: 3_600_000 });
+  return { ms: performance.now() - started, message: await message.innerText() };
+}
+
+const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
+const scaled = (ms: number) => (TRANSITS >= TARGET ? '' : `  → extrapolated to 1,000,000 (linear): ${seconds((ms * TARGET) / TRANSITS)}`);
+
+async function main(): Promise<void> {
+  const folder = await mkdtemp(path.join(os.tmpdir(), 'ml-bench-'));
+  const logFile = path.join(folder, 'transits.csv');
+  const server = await preview({ configFile: 'renderer/vite.config.ts', preview: { host: '127.0.0.1', port: PORT, strictPort: true, open: false } });
+  const browser = await chromium.launch({ executablePath: CHROMIUM_EXECUTABLE, args: CHROMIUM_ARGS });
+  try {
+    await writeTransitLog(logFile);
+    const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
+    page.setDefaultTimeout(3_600_000);
+    await page.addInitScript(() => {
+      const longest = { ms: 0, count: 0 };
+      (window as unknown as { __longTasks: typeof longest }).__longTasks = longest;
+      new PerformanceObserver((list) => {
+        for (const entry of list.getEntries()) {
+          longest.count++;
+          longest.ms = Math.max(longest.ms, entry.duration);
+        }
+      }).observe({ type: 'longtask', buffered: true });
+    });
+    await page.goto(`http://127.0.0.1:${PORT}/?no-demo#/exchange`);
+    await page.getByRole('button', { name: 'Choose a file to import…' }).waitFor();
+    await importFile(page, { name: 'site.json', text: SITE });
+    await importFile(page, { name: 'stars.csv', text: starList() });
+    const longTasks = async () => page.evaluate(() => (window as unknown as { __longTasks: { ms: number; count: number } }).__longTasks);
+    const { ms: importMs, message: importMessage } = await importFile(page, logFile);
+    const afterImport = await longTasks();
+
+    const queryMs = await page.evaluate(async ({ repeats }) => {
+      const db = await new Promise<IDBDatabase>((resolve, reject) => {
+        const open = indexedDB.open('meridian-ledger-archive');
+        open.onsuccess = () => resolve(open.result);
+        open.onerror = () => reject(open.error);
+      });
+      const starId = await new Promise<string>((resolve) => {
+        const r = db.transaction('stars').objectStore('stars').index('catalogueId').get('B007');
+        r.onsuccess = () => resolve((r.result as { id: string }).id);
+      });
+      const times: number[] = [];
+      let rows = 0;
+      for (let k = 0; k < repeats; k++) {
+        const t0 = performance.now();
+        rows = await new Promise<number>((resolve) => {
+          const r = db.transaction('transits').objectStore('transits').index('[starId+utcMjd]').getAll(IDBKeyRange.bound([starId, -Infinity], [starId, Infinity]), 10_000);
+          r.onsuccess = () => resolve((r.result as unknown[]).length);
+        });
+        times.push(performance.now() - t0);
+      }
+      db.close();
+      times.sort((a, b) => a - b);
+      return { p95: times[Math.ceil(0.95 * times.length) - 1], median: times[Math.floor(times.length / 2)], rows };
+    }, { repeats: QUERY_REPEATS });
+
+    const download = page.waitForEvent('download');
+    const exportStart = performance.now();
+    await page.getByRole('button', { name: 'Export the whole archive…' }).click();
+    const bundle = await download;
+    const bundleFile = path.join(folder, 'archive.mlbundle');
+    await bundle.saveAs(bundleFile);
+    const exportMs = performance.now() - exportStart;
+
+    const chooser = page.waitForEvent('filechooser');
+    await page.getByRole('button', { name: 'Restore from a bundle…' }).click();
+    await (await chooser).setFiles(bundleFile);
+    await page.getByTestId('bundle-preview').waitFor();
+    await page.getByLabel(/I have exported the current archive/).check();
+    const restoreStart = performance.now();
+    await page.getByRole('button', { name: 'Replace the archive' }).click();
+    await page.getByTestId('bundle-message').waitFor();
+    const restoreMs = performance.now() - restoreStart;
+    const atEnd = await longTasks();
+
+    console.log(`\nMeridian Ledger archive benchmark — ${TRANSITS.toLocaleString('en')} transits (${STARS} stars × ${NIGHTS} nights), headless Chromium, ${os.cpus().length} cores`);
+    console.log(`the app said: ${importMessage}`);
+    console.log(`import of the transit log (click → committed):  ${seconds(importMs)}   target < 60 s${scaled(importMs)}`);
+    console.log(`longest main-thread task during the import:      ${afterImport.ms.toFixed(0)} ms (${afterImport.count} long tasks)   target ≤ 200 ms`);
+    console.log(`range query, ${queryMs.rows} transits of one star:      p95 ${queryMs.p95.toFixed(1)} ms, median ${queryMs.median.toFixed(1)} ms over ${QUERY_REPEATS}   target p95 < 200 ms (for 10,000)${queryMs.rows < 10_000 ? '  (smaller than 10,000: not comparable)' : ''}`);
+    console.log(`bundle export (click → download saved):          ${seconds(exportMs)}   target < 60 s${scaled(exportMs)}`);
+    console.log(`bundle restore, replacing the archive:           ${seconds(restoreMs)}   target < 60 s${scaled(restoreMs)}`);
+    console.log(`longest main-thread task over the whole run:     ${atEnd.ms.toFixed(0)} ms (${atEnd.count} long tasks)`);
+    if (TRANSITS < TARGET) console.log('Figures marked "extrapolated" are a linear scaling of the measured size, not measurements at 1,000,000.');
+  } finally {
+    await browser.close();
+    await new Promise<void>((resolve) => server.httpServer.close(() => resolve()));
+    await rm(folder, { recursive: true, force: true });
+  }
+}
+
+await main();
