@@ -74,3 +74,17 @@ export function readCsvTable(bytes: Uint8Array, fileName: string): CsvTable {
   });
   return { header, rows, rejected, totalRows };
 }
+
+/**
+ * The rejection of a whole file whose header cannot be read or lacks a required column: the
+ * header problem as row 0 and every data row "not read"; null when the header is usable. Shared by
+ * the parsers so each file kind words and counts it the same way.
+ */
+export function unusableHeader(table: CsvTable, required: readonly string[]): { rows: never[]; rejected: Rejection[]; warnings: string[]; totalRows: number } | null {
+  if (table.header.length === 0 || table.rejected.some((r) => r.row === 0)) return { rows: [], rejected: [...table.rejected], warnings: [], totalRows: table.totalRows };
+  const missing = required.filter((name) => !table.header.includes(name));
+  if (missing.length === 0) return null;
+  const rejected: Rejection[] = [...table.rejected, { row: 0, line: 1, column: '', reason: `header: required column(s) ${missing.join(', ')} missing` }];
+  for (const row of table.rows) rejected.push({ row: row.row, line: row.line, column: '', reason: 'not read: the header is unusable (see row 0)' });
+  return { rows: [], rejected, warnings: [], totalRows: table.totalRows };
+}

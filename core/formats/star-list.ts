@@ -1,5 +1,5 @@
 import { parseNumberCell } from './cells.ts';
-import { readCsvTable } from './csv-table.ts';
+import { readCsvTable, unusableHeader } from './csv-table.ts';
 import type { TableRow } from './csv-table.ts';
 import type { ParseResult, Rejection } from './parse-result.ts';
 
@@ -82,15 +82,10 @@ function parseStar(row: TableRow, problems: Problems): StarListRow | null {
  */
 export function parseStarList(bytes: Uint8Array, fileName: string): ParseResult<StarListRow> {
   const table = readCsvTable(bytes, fileName);
+  const unusable = unusableHeader(table, REQUIRED);
+  if (unusable !== null) return unusable;
   const rejected: Rejection[] = [...table.rejected];
   const warnings: string[] = [];
-  if (table.header.length === 0 || table.rejected.some((r) => r.row === 0)) return { rows: [], rejected, warnings, totalRows: table.totalRows };
-  const missing = REQUIRED.filter((name) => !table.header.includes(name));
-  if (missing.length > 0) {
-    rejected.push({ row: 0, line: 1, column: '', reason: `header: required column(s) ${missing.join(', ')} missing` });
-    for (const row of table.rows) rejected.push({ row: row.row, line: row.line, column: '', reason: 'not read: the header is unusable (see row 0)' });
-    return { rows: [], rejected, warnings, totalRows: table.totalRows };
-  }
   const absent = OPTIONAL_NUMBERS.map((o) => o[0]).filter((name) => !table.header.includes(name));
   if (absent.length > 0) warnings.push(`${fileName}: column(s) ${absent.join(', ')} absent: those values are unknown (null), not zero`);
   const unknown = table.header.filter((name) => !KNOWN.has(name));
