@@ -1,19 +1,14 @@
 import type { ReductionRecord } from '../../core/archive/records.ts';
 import type { JointModel } from '../../core/joint/joint-model.ts';
-import type { StarResult } from '../../core/joint/solve-archive.ts';
-import type { NightInstrumentTerms } from '../../core/joint/solve-outputs.ts';
+import type { ArchiveSolveResult } from '../../core/joint/solve-archive.ts';
 import type { SolveSelection } from './solveSelection.ts';
 
-/** The part of a saved reduction's results (solveResultJson) the Solve view shows. */
-export interface SavedResults {
-  readonly stars: readonly StarResult[];
-  readonly global: Readonly<Record<string, number | null>>;
-  readonly unitWeightError: number;
-  readonly chiSquare: number;
-  readonly degreesOfFreedom: number;
-  readonly degeneracies: readonly string[];
-  readonly notes: readonly string[];
-  readonly instrumentSeries: readonly NightInstrumentTerms[];
+/**
+ * The part of a saved reduction's results (solveResultJson) the Solve view shows: the JSON-safe
+ * fields of the joint solve's own result, plus the nights per star the task adds.
+ */
+export interface SavedResults
+  extends Pick<ArchiveSolveResult, 'stars' | 'global' | 'unitWeightError' | 'chiSquare' | 'degreesOfFreedom' | 'degeneracies' | 'notes' | 'instrumentSeries'> {
   readonly starNights: Readonly<Record<string, number>>;
 }
 
