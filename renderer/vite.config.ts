@@ -36,7 +36,8 @@ export default defineConfig(({ command, isPreview }) => ({
   define: { __APP_VERSION__: JSON.stringify(appVersion(command, isPreview === true)) },
   worker: { format: 'es' },
   build: {
-    outDir: '../dist/renderer',
+    // RENDERER_OUT_DIR (absolute) lets parallel e2e runs on one machine build and serve apart.
+    outDir: process.env.RENDERER_OUT_DIR ?? '../dist/renderer',
     emptyOutDir: true,
     target: 'es2022',
     // No inline data: assets: every file comes from 'self'.
