@@ -42,7 +42,15 @@ export interface EarthOrientationColumns {
   readonly predicted: Uint8Array;
 }
 
-export class EarthOrientationTable {
+/** Anything TimeScale can take UT1 − UTC and the pole from: one table, or several spliced. */
+export interface EarthOrientationSource {
+  /** A human name of the source, shown in warnings. */
+  readonly sourceName: string;
+  /** Values at the UTC instant `mjdUtc` (MJD with fraction); status and note say what was assumed. */
+  at(mjdUtc: number): EarthOrientationValues;
+}
+
+export class EarthOrientationTable implements EarthOrientationSource {
   readonly sourceName: string;
   readonly firstMjd: number;
   readonly lastMjd: number;

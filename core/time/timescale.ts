@@ -17,7 +17,7 @@
  *  - EOP predictions: used, with the note that values are predicted.
  */
 import { deltaTSeconds } from './delta-t.ts';
-import type { EarthOrientationTable } from './earth-orientation-table.ts';
+import type { EarthOrientationSource } from './earth-orientation-table.ts';
 import { parseIsoUtc } from './iso.ts';
 import { julianDateToMjd, mjdToCalendarDay, splitMjdDay, type JulianDate } from './julian-date.ts';
 import type { LeapSecondTable } from './leap-seconds.ts';
@@ -48,9 +48,9 @@ export interface Instant {
 
 export class TimeScale {
   readonly leapSeconds: LeapSecondTable;
-  readonly eop: EarthOrientationTable | undefined;
+  readonly eop: EarthOrientationSource | undefined;
 
-  constructor(leapSeconds: LeapSecondTable, eop?: EarthOrientationTable) {
+  constructor(leapSeconds: LeapSecondTable, eop?: EarthOrientationSource) {
     this.leapSeconds = leapSeconds;
     this.eop = eop;
   }
