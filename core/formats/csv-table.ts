@@ -62,16 +62,18 @@ export function readCsvTable(bytes: Uint8Array, fileName: string): CsvTable {
     return { header, rows: [], rejected, totalRows };
   }
   const rows: TableRow[] = [];
-  ordered.slice(1).forEach((entry, k) => {
-    const row = k + 1;
+  for (let row = 1; row < ordered.length; row++) {
+    const entry = ordered[row];
     if (entry.kind === 'bad') {
       rejected.push({ row, line: entry.line, column: header[entry.field - 1] ?? `field ${entry.field}`, reason: entry.reason });
     } else if (entry.fields.length !== header.length) {
       rejected.push({ row, line: entry.line, column: '', reason: `${entry.fields.length} fields but the header has ${header.length}; quote fields that contain commas` });
     } else {
-      rows.push({ row, line: entry.line, cells: new Map(header.map((name, i) => [name, entry.fields[i]])) });
+      const cells = new Map<string, string>();
+      for (let i = 0; i < header.length; i++) cells.set(header[i], entry.fields[i]);
+      rows.push({ row, line: entry.line, cells });
     }
-  });
+  }
   return { header, rows, rejected, totalRows };
 }
 

@@ -29,88 +29,125 @@ export interface CsvReadResult {
 export function readCsv(text: string): CsvReadResult {
   const records: CsvRecord[] = [];
   const problems: (CsvProblem & { recordIndex: number })[] = [];
-  let i = 0;
-  let line = 1;
+  const reader = new CsvCursor(text);
   let recordIndex = 0;
-  const n = text.length;
-  const isBreak = (k: number): boolean => text[k] === '\n' || text[k] === '\r';
-  const skipBreak = (): void => {
-    if (text[i] === '\r' && text[i + 1] === '\n') i += 2;
-    else i += 1;
-    line += 1;
-  };
-  while (i < n) {
-    if (isBreak(i)) {
-      skipBreak();
+  while (reader.i < text.length) {
+    if (reader.atBreak()) {
+      reader.skipBreak();
       continue;
     }
-    const startLine = line;
-    const fields: string[] = [];
-    let problem: CsvProblem | null = null;
-    let field = '';
-    // One record: loop over fields until a line break outside quotes or the end of the text.
-    for (;;) {
-      if (text[i] === '"') {
-        i += 1;
-        const openedLine = line;
-        let closed = false;
-        while (i < n) {
-          const ch = text[i];
-          if (ch === '"') {
-            if (text[i + 1] === '"') {
-              field += '"';
-              i += 2;
-              continue;
-            }
-            i += 1;
-            closed = true;
-            break;
-          }
-          if (ch === '\r' || ch === '\n') {
-            const crlf = ch === '\r' && text[i + 1] === '\n';
-            field += crlf ? '\r\n' : ch;
-            i += crlf ? 2 : 1;
-            line += 1;
-            continue;
-          }
-          field += ch;
-          i += 1;
-        }
-        if (!closed) {
-          problem = { line: openedLine, field: fields.length + 1, reason: `a quoted field opened on line ${openedLine} is never closed; add the closing double quote (everything after it was read as this field)` };
-          break;
-        }
-        if (i < n && text[i] !== ',' && !isBreak(i)) {
-          problem = { line, field: fields.length + 1, reason: `text after the closing quote of field ${fields.length + 1}; put the whole field inside the quotes` };
-          break;
-        }
-      } else {
-        while (i < n && text[i] !== ',' && !isBreak(i)) {
-          if (text[i] === '"') {
-            problem = { line, field: fields.length + 1, reason: `a double quote inside unquoted field ${fields.length + 1}; quote the whole field and double the inner quotes ("")` };
-            break;
-          }
-          field += text[i];
-          i += 1;
-        }
-        if (problem) break;
-      }
-      fields.push(field);
-      field = '';
-      if (i < n && text[i] === ',') {
-        i += 1;
-        continue;
-      }
-      break;
-    }
+    const startLine = reader.line;
+    const { fields, problem } = reader.readRecord();
     if (problem) {
       problems.push({ ...problem, recordIndex });
-      while (i < n && !isBreak(i)) i += 1;
+      reader.skipToBreak();
     } else {
       records.push({ fields, line: startLine });
     }
     recordIndex += 1;
-    if (i < n) skipBreak();
+    if (reader.i < text.length) reader.skipBreak();
   }
   return { records, problems };
+}
+
+const QUOTE = 0x22;
+const COMMA = 0x2c;
+const LF = 0x0a;
+const CR = 0x0d;
+
+/**
+ * The reading position in one CSV text. Fields are cut out with `slice` between delimiters found
+ * by `charCodeAt` (not built character by character): a 1,000,000-row log reads in about a
+ * second instead of several.
+ */
+class CsvCursor {
+  i = 0;
+  line = 1;
+  readonly #text: string;
+  constructor(text: string) {
+    this.#text = text;
+  }
+
+  atBreak(): boolean {
+    const c = this.#text.charCodeAt(this.i);
+    return c === LF || c === CR;
+  }
+
+  skipBreak(): void {
+    const text = this.#text;
+    this.i += text.charCodeAt(this.i) === CR && text.charCodeAt(this.i + 1) === LF ? 2 : 1;
+    this.line += 1;
+  }
+
+  skipToBreak(): void {
+    while (this.i < this.#text.length && !this.atBreak()) this.i += 1;
+  }
+
+  /** One record from the current position up to (not including) its line break or the end. */
+  readRecord(): { fields: string[]; problem: CsvProblem | null } {
+    const text = this.#text;
+    const fields: string[] = [];
+    for (;;) {
+      const read = text.charCodeAt(this.i) === QUOTE ? this.#quotedField(fields.length + 1) : this.#plainField(fields.length + 1);
+      if (typeof read !== 'string') return { fields, problem: read };
+      fields.push(read);
+      if (text.charCodeAt(this.i) !== COMMA) return { fields, problem: null };
+      this.i += 1;
+    }
+  }
+
+  #plainField(fieldNumber: number): string | CsvProblem {
+    const text = this.#text;
+    const start = this.i;
+    let i = start;
+    for (; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c === COMMA || c === LF || c === CR) break;
+      if (c === QUOTE) {
+        this.i = i;
+        return { line: this.line, field: fieldNumber, reason: `a double quote inside unquoted field ${fieldNumber}; quote the whole field and double the inner quotes ("")` };
+      }
+    }
+    this.i = i;
+    return text.slice(start, i);
+  }
+
+  #quotedField(fieldNumber: number): string | CsvProblem {
+    const text = this.#text;
+    const openedLine = this.line;
+    let field = '';
+    let from = this.i + 1;
+    for (;;) {
+      const close = text.indexOf('"', from);
+      const end = close < 0 ? text.length : close;
+      this.#countBreaks(from, end);
+      field += text.slice(from, end);
+      if (close < 0) {
+        this.i = text.length;
+        return { line: openedLine, field: fieldNumber, reason: `a quoted field opened on line ${openedLine} is never closed; add the closing double quote (everything after it was read as this field)` };
+      }
+      if (text.charCodeAt(close + 1) === QUOTE) {
+        field += '"';
+        from = close + 2;
+        continue;
+      }
+      this.i = close + 1;
+      break;
+    }
+    const next = text.charCodeAt(this.i);
+    if (this.i < text.length && next !== COMMA && next !== LF && next !== CR) {
+      return { line: this.line, field: fieldNumber, reason: `text after the closing quote of field ${fieldNumber}; put the whole field inside the quotes` };
+    }
+    return field;
+  }
+
+  /** Physical lines inside a quoted field: CRLF counts once, a lone CR or LF once. */
+  #countBreaks(from: number, to: number): void {
+    const text = this.#text;
+    for (let k = from; k < to; k++) {
+      const c = text.charCodeAt(k);
+      if (c === LF) this.line += 1;
+      else if (c === CR && text.charCodeAt(k + 1) !== LF) this.line += 1;
+    }
+  }
 }

@@ -151,6 +151,47 @@ function firstTimeS(row: TransitLogRow): number {
   return times.kind === 'utc' ? utcCountS(times.wires[0].utc) : times.wires[0].clockS + (row.nightDateMjd ?? 0) * 86_400;
 }
 
+const HALF_DAY_S = 43_200;
+
+/**
+ * Accepted rows by star, culmination and instrument, in half-day buckets of their first wire
+ * time, so that finding an earlier row within half a day looks at three buckets instead of every
+ * earlier row of that star (the list scan made a 1,000,000-row log quadratic).
+ */
+class EarlierTransits {
+  /** Star, culmination and instrument → half-day bucket number → rows in file order. */
+  readonly #byTransit = new Map<string, Map<number, TransitLogRow[]>>();
+
+  #bucketsOf(row: TransitLogRow): Map<number, TransitLogRow[]> {
+    const key = `${row.starId}\u0000${row.culmination}\u0000${row.instrumentId ?? ''}`;
+    let buckets = this.#byTransit.get(key);
+    if (buckets === undefined) this.#byTransit.set(key, (buckets = new Map()));
+    return buckets;
+  }
+
+  add(row: TransitLogRow): void {
+    const buckets = this.#bucketsOf(row);
+    const bucket = Math.floor(firstTimeS(row) / HALF_DAY_S);
+    const list = buckets.get(bucket);
+    if (list === undefined) buckets.set(bucket, [row]);
+    else list.push(row);
+  }
+
+  /** The earliest accepted row (in file order) less than half a day from `row`, if any. */
+  firstWithinHalfDay(row: TransitLogRow): TransitLogRow | undefined {
+    const buckets = this.#bucketsOf(row);
+    const timeS = firstTimeS(row);
+    const bucket = Math.floor(timeS / HALF_DAY_S);
+    let first: TransitLogRow | undefined;
+    for (let b = bucket - 1; b <= bucket + 1; b++) {
+      for (const earlier of buckets.get(b) ?? []) {
+        if (Math.abs(firstTimeS(earlier) - timeS) < HALF_DAY_S && (first === undefined || earlier.row < first.row)) first = earlier;
+      }
+    }
+    return first;
+  }
+}
+
 /**
  * Parses a transit log CSV (bytes, UTF-8; layout in FORMATS.md) into typed rows. Every row is
  * checked: numbers per column with the unit of its header, impossible angles and weather, times
@@ -173,17 +214,16 @@ export function parseTransitLog(bytes: Uint8Array, options: TransitLogOptions): 
   if (!options.knownStarIds) warnings.push(`${options.fileName}: star ids not checked (no star list given)`);
   if (layout.timeKind === 'utc' ? !options.nightUtc : !options.nightClockS) warnings.push(`${options.fileName}: times not checked against the night's window (none given)`);
   const rows: TransitLogRow[] = [];
-  const seen = new Map<string, TransitLogRow[]>();
+  const seen = new EarlierTransits();
   for (const tableRow of table.rows) {
     const problems: Problems = [];
     const parsed = parseRow(tableRow, layout, options, problems);
     if (parsed) {
-      const key = `${parsed.starId}\u0000${parsed.culmination}\u0000${parsed.instrumentId ?? ''}`;
-      const earlier = (seen.get(key) ?? []).find((r) => Math.abs(firstTimeS(r) - firstTimeS(parsed)) < 43_200);
+      const earlier = seen.firstWithinHalfDay(parsed);
       if (earlier) problems.push({ column: 'starId', reason: `duplicate of row ${earlier.row} (same star, culmination and instrument within half a day)` });
       else {
         rows.push(parsed);
-        seen.set(key, [...(seen.get(key) ?? []), parsed]);
+        seen.add(parsed);
       }
     }
     for (const p of problems) rejected.push({ row: tableRow.row, line: tableRow.line, column: p.column, reason: p.reason });
