@@ -27,6 +27,9 @@ export class TonightState {
   transits = $state.raw<readonly PredictedTransit[]>([]);
   phase = $state<'idle' | 'computing' | 'ready' | 'failed'>('idle');
   problem = $state<string | null>(null);
+  /** Warnings of the programme's predictions (e.g. the night lies beyond the Earth orientation tables) and the tables used. */
+  notes = $state.raw<readonly string[]>([]);
+  tablesInUse = $state('');
   night = $state.raw<NightRecord | null>(null);
   logged = $state.raw<readonly TransitRecord[]>([]);
   nowMs = $state(Date.now());
@@ -112,10 +115,14 @@ export class TonightState {
       pressureHpa: w.pressureHpa, temperatureC: w.temperatureC, relativeHumidity: w.relativeHumidityPercent / 100,
       wavelengthUm: (this.instrument?.effectiveWavelengthNm ?? 550) / 1000,
     };
-    const job = this.#compute.run({ kind: 'tonight-programme', site, stars: this.stars, fromUtcMjd: window.fromUtcMjd, untilUtcMjd: window.untilUtcMjd, weather });
+    const job = this.#compute.run({
+      kind: 'tonight-programme', site, stars: this.stars, fromUtcMjd: window.fromUtcMjd, untilUtcMjd: window.untilUtcMjd, weather, databaseName: this.database.name,
+    });
     const outcome = await job.outcome;
     if (outcome.kind === 'finished' && outcome.result.kind === 'tonight-programme') {
       this.transits = outcome.result.transits;
+      this.notes = outcome.result.notes;
+      this.tablesInUse = outcome.result.tablesInUse;
       this.phase = 'ready';
       this.problem = outcome.result.failures.length === 0 ? null : outcome.result.failures.map((f) => `${f.starId}: ${f.reason}`).join('; ');
     } else {

@@ -7,6 +7,8 @@ import { bundledEarthOrientationTable } from '../../../core/time/bundled-earth-o
 import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../../core/time/timescale.ts';
 import { DEG } from '../../../core/units.ts';
+import { ArchiveDatabase } from '../../store/database.ts';
+import { archiveTimeScale } from './archiveTimeScale.ts';
 
 /** One programme star as the worker needs it (the store's StarRecord fields, degrees and mas). */
 export interface ProgrammeStarInput {
@@ -30,6 +32,11 @@ export interface TonightProgrammeRequest {
   readonly untilUtcMjd: number;
   /** Weather for refraction of the observed zenith distance; null gives geometric values only. */
   readonly weather: Weather | null;
+  /**
+   * The archive whose imported leap seconds and Earth orientation to use (over the bundled ones);
+   * absent: the bundled tables only.
+   */
+  readonly databaseName?: string;
 }
 
 /** One predicted transit, plain numbers only (structured clone). */
@@ -55,13 +62,18 @@ export interface TonightProgrammeResult {
   readonly transits: readonly PredictedTransit[];
   /** Stars whose prediction failed, with the reason (the rest of the programme still stands). */
   readonly failures: readonly { readonly starId: string; readonly reason: string }[];
+  /** The leap-second and Earth orientation tables used, in words. */
+  readonly tablesInUse: string;
+  /** Every distinct warning of the night's predictions (e.g. the night is beyond the Earth orientation tables). */
+  readonly notes: readonly string[];
 }
 
 const MJD_ZERO_JD = 2_400_000.5;
 
 /**
  * The night's programme in the worker: core/astrometry/night-programme.ts over the window, upper
- * and lower culminations above the horizon, bundled leap seconds and IERS C04 Earth orientation,
+ * and lower culminations above the horizon, the archive's leap seconds and Earth orientation
+ * (archiveTimeScale: imported IERS files over the bundled ones; bundled only without a database),
  * IAU 2006/2000A. One star at a time so that a bad star is reported, not fatal, and a cancel is
  * seen between stars.
  */
@@ -69,7 +81,7 @@ export async function runTonightProgramme(request: TonightProgrammeRequest, cont
   if (!(request.untilUtcMjd > request.fromUtcMjd)) {
     throw new RangeError(`tonight-programme: untilUtcMjd ${request.untilUtcMjd} must be later than fromUtcMjd ${request.fromUtcMjd}`);
   }
-  const scale = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
+  const { scale, tablesInUse } = await timeScaleFor(request.databaseName);
   const site = { latitudeRad: request.site.latitudeDeg * DEG, longitudeRad: request.site.longitudeDeg * DEG, heightM: request.site.heightM };
   const from = { jd1: MJD_ZERO_JD, jd2: request.fromUtcMjd };
   const until = { jd1: MJD_ZERO_JD, jd2: request.untilUtcMjd };
@@ -99,5 +111,18 @@ export async function runTonightProgramme(request: TonightProgrammeRequest, cont
     await control.yieldToHost();
   }
   transits.sort((a, b) => a.utcMjd - b.utcMjd);
-  return { kind: 'tonight-programme', transits, failures };
+  const notes = [...new Set(transits.flatMap((t) => t.warnings))];
+  return { kind: 'tonight-programme', transits, failures, tablesInUse, notes };
+}
+
+async function timeScaleFor(databaseName: string | undefined): Promise<{ scale: TimeScale; tablesInUse: string }> {
+  if (databaseName === undefined) {
+    return { scale: new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable()), tablesInUse: 'bundled leap seconds and IERS C04 Earth orientation' };
+  }
+  const database = new ArchiveDatabase(databaseName);
+  try {
+    return await archiveTimeScale(database);
+  } finally {
+    database.close();
+  }
 }
