@@ -6,9 +6,7 @@ import type { ArchiveDatabase } from '../store/database.ts';
 import { applyColumnMapping, type ColumnMapping } from './columnMapping.ts';
 import { countsOf, type ImportPlan } from './importReport.ts';
 import { transitRecordFromRow, wireTimesMjd, zenithReadingsFor } from './transitRecordFromRow.ts';
-
-/** Same star, culmination and instrument within this many days is the same transit (FORMATS.md). */
-export const DUPLICATE_WINDOW_DAYS = 0.5;
+import { ArchivedNeighbours, loadArchivedNeighbours } from './archivedNeighbours.ts';
 
 export interface TransitImportOptions {
   /** Instrument for rows whose instrumentId cell is empty (or absent); null: such rows are rejected. */
@@ -47,14 +45,6 @@ async function loadLookups(database: ArchiveDatabase): Promise<Lookups> {
   };
 }
 
-async function archivedDuplicate(database: ArchiveDatabase, record: TransitRecord): Promise<TransitRecord | undefined> {
-  return database.transits
-    .where('[starId+utcMjd]')
-    .between([record.starId, record.utcMjd - DUPLICATE_WINDOW_DAYS], [record.starId, record.utcMjd + DUPLICATE_WINDOW_DAYS], true, true)
-    .and((t) => t.visibility === 'visible' && t.culmination === record.culmination && t.instrumentId === record.instrumentId)
-    .first();
-}
-
 /**
  * Validates a transit log (FORMATS.md) against the archive and plans its writes. Needs the star
  * list and the site description imported first (missingPrerequisites says which is absent, and no
@@ -76,6 +66,7 @@ export async function planTransitImport(
   const transits: TransitRecord[] = [];
   const newNights = new Map<string, NightRecord>();
   let duplicateCount = 0;
+  const archived = missingPrerequisites.length === 0 ? await loadArchivedNeighbours(database, parsed.rows, lookups, options.defaultInstrumentId) : ArchivedNeighbours.EMPTY;
   if (missingPrerequisites.length > 0) {
     for (const row of parsed.rows) rejected.push({ row: row.row, line: row.line, column: '', reason: `not imported: ${missingPrerequisites[0]}` });
   }
@@ -87,12 +78,12 @@ export async function planTransitImport(
       reject('instrumentId', instrumentId === null ? 'no instrumentId in the row and no instrument chosen for the file; choose one or fill the column' : `unknown instrument '${instrumentId}'; import its site description first or correct the id`);
       continue;
     }
-    const planned = await planRow(database, row, instrument, lookups, newNights, nowUtc);
+    const planned = planRow(row, instrument, lookups, archived, newNights, nowUtc);
     if ('reason' in planned) {
       reject(planned.column, planned.reason);
       continue;
     }
-    const duplicate = await archivedDuplicate(database, planned);
+    const duplicate = archived.duplicateOf(planned);
     if (duplicate !== undefined) {
       duplicateCount++;
       reject('starId', `already in the archive (transit ${duplicate.id} at UTC MJD ${duplicate.utcMjd.toFixed(5)}: same star, culmination and instrument within half a day); skipped`);
@@ -100,7 +91,8 @@ export async function planTransitImport(
     }
     transits.push(planned);
   }
-  const created = { nights: [...newNights.values()].filter((n) => transits.some((t) => t.nightId === n.id)), transits };
+  const usedNightIds = new Set(transits.map((t) => t.nightId));
+  const created = { nights: [...newNights.values()].filter((n) => usedNightIds.has(n.id)), transits };
   const validRows = transits.length;
   return {
     report: {
@@ -112,9 +104,9 @@ export async function planTransitImport(
   };
 }
 
-async function planRow(
-  database: ArchiveDatabase, row: TransitLogRow, instrument: InstrumentRecord, lookups: Lookups, newNights: Map<string, NightRecord>, nowUtc: string,
-): Promise<TransitRecord | { column: string; reason: string }> {
+function planRow(
+  row: TransitLogRow, instrument: InstrumentRecord, lookups: Lookups, archived: ArchivedNeighbours, newNights: Map<string, NightRecord>, nowUtc: string,
+): TransitRecord | { column: string; reason: string } {
   const site = lookups.sites.get(instrument.siteId);
   const firstUtcMjd = row.times.kind === 'utc' ? row.times.wires[0].utc.mjd + row.times.wires[0].utc.secondsOfDay / 86_400 : null;
   const nightDateMjd = row.nightDateMjd ?? (firstUtcMjd === null ? null : nightDateOf(firstUtcMjd, site));
@@ -125,7 +117,7 @@ async function planRow(
   const localDate = isoDate(nightDateMjd as number);
   const key = `${instrument.id}\u0000${localDate}`;
   let night: NightRecord | undefined = newNights.get(key);
-  night ??= await database.nights.where('[instrumentId+localDate]').equals([instrument.id, localDate]).and((n) => n.visibility === 'visible').first();
+  night ??= archived.nightOf(instrument.id, localDate);
   if (night === undefined) {
     night = {
       id: crypto.randomUUID(), siteId: instrument.siteId, instrumentId: instrument.id, localDate, observer: row.observer ?? '',
