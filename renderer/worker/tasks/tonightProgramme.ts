@@ -111,8 +111,17 @@ export async function runTonightProgramme(request: TonightProgrammeRequest, cont
     await control.yieldToHost();
   }
   transits.sort((a, b) => a.utcMjd - b.utcMjd);
-  const notes = [...new Set(transits.flatMap((t) => t.warnings))];
+  // One line per distinct warning: the instant each prediction names is taken out, so a night beyond the tables says so once.
+  const notes = [...new Set(transits.flatMap((t) => t.warnings).map(forTheNight))];
   return { kind: 'tonight-programme', transits, failures, tablesInUse, notes };
+}
+
+/** A prediction's warning said of the whole night: "MJD 61375.476: it is after…" → "This night: it is after…". */
+function forTheNight(warning: string): string {
+  return warning
+    .replace(/^MJD \d+(\.\d+)?: /, 'This night: ')
+    .replace(/values at MJD \d+(\.\d+)? are/, "this night's values are")
+    .replace(/^MJD \d+(\.\d+)? is/, 'This night is');
 }
 
 async function timeScaleFor(databaseName: string | undefined): Promise<{ scale: TimeScale; tablesInUse: string }> {
