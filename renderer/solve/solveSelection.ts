@@ -1,5 +1,6 @@
 import type { ArchiveContent } from '../../core/archive-folder/archive-folder.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
+import { keyedByCatalogueId } from '../store/keyedByCatalogueId.ts';
 
 /**
  * What part of the archive a solve uses. `null` in a list means "all"; dates are local night
@@ -40,5 +41,6 @@ export async function archiveContentFromStore(database: ArchiveDatabase, selecti
     throw new Error('The chosen stars, instruments and dates leave no transit to solve; widen the selection.');
   }
   const usedNights = new Set(transits.map((t) => t.nightId));
-  return { site: sites[0], instruments, events, stars, nights: nights.filter((n) => usedNights.has(n.id)), transits };
+  return keyedByCatalogueId({ site: sites[0], instruments, events, stars, nights: nights.filter((n) => usedNights.has(n.id)), transits });
 }
+
