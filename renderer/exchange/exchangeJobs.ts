@@ -6,12 +6,22 @@ export type ExchangeOutcome<K extends ExchangeResult['kind']> =
   | { readonly kind: 'cancelled' }
   | { readonly kind: 'failed'; readonly message: string };
 
+/** Exchange jobs of this window still running, by kind (the hourly backup skips imports and restores). */
+const runningJobs = new Map<ExchangeRequest['kind'], number>();
+
+/** Whether an Exchange job of one of `kinds` is running in this window. */
+export function isExchangeJobRunning(kinds: readonly ExchangeRequest['kind'][]): boolean {
+  return kinds.some((kind) => (runningJobs.get(kind) ?? 0) > 0);
+}
+
 /** Starts an Exchange job in the worker; `outcome` resolves once, typed by the request's kind. */
 export function startExchangeJob<R extends ExchangeRequest>(
   compute: ComputeClient, request: R, onProgress: (done: number, total: number) => void,
 ): { handle: JobHandle; outcome: Promise<ExchangeOutcome<R['kind']>> } {
   const handle = compute.run(request, onProgress);
-  const outcome = handle.outcome.then((o): ExchangeOutcome<R['kind']> => {
+  runningJobs.set(request.kind, (runningJobs.get(request.kind) ?? 0) + 1);
+  const settled = handle.outcome.finally(() => runningJobs.set(request.kind, (runningJobs.get(request.kind) ?? 1) - 1));
+  const outcome = settled.then((o): ExchangeOutcome<R['kind']> => {
     if (o.kind === 'cancelled') return { kind: 'cancelled' };
     if (o.kind === 'failed') return o;
     if (o.result.kind !== request.kind) return { kind: 'failed', message: `the worker answered a ${request.kind} job with a ${o.result.kind} result` };
