@@ -1,8 +1,10 @@
 import { ObservationRowsBuilder } from '../solver/index.ts';
 import type { LinearConstraint, ParameterPrior, SolverProblem } from '../solver/index.ts';
 import type { StarListRow } from '../formats/star-list.ts';
-import type { JointModel } from './joint-model.ts';
+import { diurnalAberrationMas, diurnalPartialMas, diurnalSeparability, latitudePhases, zenithPerLatitude } from './common-terms.ts';
+import type { JointModel, SegmentableTerm } from './joint-model.ts';
 import type { JointNight, JointObservation } from './joint-observations.ts';
+import { nightlyValue, segmentTerms, type SegmentEvent, type TermSegment } from './segment-terms.ts';
 
 /** Rotation rate of the Earth in mas of hour angle per ms of UT1 (15″/s × 1.0027378, IERS Conventions 2010 eq. 5.15). */
 const MAS_PER_MS = 15 * 1.002737811911354;
@@ -30,6 +32,28 @@ export interface JointLayout {
   readonly zenithRow: Int32Array;
   /** Constraints applied because the data and priors leave a direction open, in words. */
   readonly appliedConstraints: readonly string[];
+  /** Latitude variation: cos, sin global index per period of model.latitudeVariationPeriodsDays (empty when not estimated). */
+  readonly latitudeVariation: readonly (readonly [number, number])[];
+  /** Diurnal-aberration scale (global index, −1 absent) and the aberration it scales (mas on the sky at the meridian). */
+  readonly diurnalAberrationScale: number;
+  readonly diurnalAberrationMas: number;
+  /** Instrument terms held per segment between events, and per term the segment of each night (−1: per night). */
+  readonly segments: readonly TermSegment[];
+  readonly nightSegment: Readonly<Record<SegmentableTerm, Int32Array>>;
+  /** Terms the data cannot carry and that were therefore not estimated, in words. */
+  readonly notEstimated: readonly string[];
+}
+
+/** What buildJointProblem needs beyond the model and the reduced archive: all optional. */
+export interface JointProblemContext {
+  /** The instruments' events (segments, termSpan). */
+  readonly events?: readonly SegmentEvent[];
+  /** Site's geodetic latitude (rad) and height (m), for the diurnal aberration's size. */
+  readonly latitudeRad?: number;
+  readonly heightM?: number;
+  /** Weight factors per observation (variance components): right ascension and zenith rows' weights are multiplied by them. */
+  readonly raWeightFactor?: Float64Array;
+  readonly zenithWeightFactor?: Float64Array;
 }
 
 const free = (setting: string): boolean => setting === 'free';
@@ -46,15 +70,18 @@ function globalLayout(model: JointModel, stars: readonly StarListRow[], names: s
     flexure: add(free(model.flexure), 'flexure Δf (mas)'), temperatureRa: add(free(model.temperature), 'temperature α (mas/°C)'),
     temperatureDec: add(free(model.temperature), 'temperature δ (mas/°C)'),
     seasonal: free(model.seasonal) ? ['seasonal α cos', 'seasonal α sin', 'seasonal δ cos', 'seasonal δ sin'].map((n) => names.push(`${n} (mas)`) - 1) : [],
+    latitudeVariation: free(model.latitudeVariation) ? model.latitudeVariationPeriodsDays.map((p) => [names.push(`latitude variation ${p} d cos (mas)`) - 1, names.push(`latitude variation ${p} d sin (mas)`) - 1] as const) : [],
+    diurnalAberrationScale: add(free(model.diurnalAberrationScale), 'diurnal-aberration scale (fraction)'),
   };
 }
 
 function localLayout(model: JointModel) {
   let n = 0;
+  const nightly = (term: SegmentableTerm): boolean => free(model[term]) && model.termSpan[term] === 'per-night';
   const add = (on: boolean): number => (on ? n++ : -1);
-  const clockOffset = add(free(model.clockOffset)), clockRate = add(free(model.clockRate)), azimuth = add(free(model.azimuth));
-  const level = add(free(model.level)), collimation = add(free(model.collimation));
-  return { clockOffset, clockRate, azimuth, level, collimation, raLocalCount: n, zeroPoint: free(model.zeroPoint) ? 0 : -1 };
+  const clockOffset = add(free(model.clockOffset)), clockRate = add(nightly('clockRate')), azimuth = add(nightly('azimuth'));
+  const level = add(nightly('level')), collimation = add(nightly('collimation'));
+  return { clockOffset, clockRate, azimuth, level, collimation, raLocalCount: n, zeroPoint: nightly('zeroPoint') ? 0 : -1 };
 }
 
 /** Pseudo-observations: clock and level priors per night, catalogue priors per star. */
@@ -79,7 +106,7 @@ function priorsOf(model: JointModel, stars: readonly StarListRow[], nights: read
 }
 
 /** Sum-zero constraints for the system's zero point and rate when neither catalogue priors nor clock comparisons fix them (DESIGN §4). */
-function constraintsOf(observations: readonly JointObservation[], stars: readonly StarListRow[], nights: readonly JointNight[], priors: readonly ParameterPrior[], g: ReturnType<typeof globalLayout>, l: ReturnType<typeof localLayout>): LinearConstraint[] {
+function constraintsOf(model: JointModel, observations: readonly JointObservation[], stars: readonly StarListRow[], nights: readonly JointNight[], priors: readonly ParameterPrior[], g: ReturnType<typeof globalLayout>, l: ReturnType<typeof localLayout>): LinearConstraint[] {
   const hasStarPrior = priors.some((p) => p.parameter.kind === 'global' && g.star.some((s) => s.ra === p.parameter.index || s.pmRa === p.parameter.index));
   if (hasStarPrior) return [];
   const side = new Float64Array(stars.length);
@@ -89,7 +116,7 @@ function constraintsOf(observations: readonly JointObservation[], stars: readonl
     const terms = g.star.flatMap((s, i) => (pick(s) >= 0 && coefficient(i) !== 0 ? [{ parameter: { kind: 'global' as const, index: pick(s) }, coefficient: coefficient(i) }] : []));
     if (terms.length > 0) out.push({ label, terms, value: 0 });
   };
-  if (l.zeroPoint >= 0) {
+  if (free(model.zeroPoint)) {
     sum('zero point of the declination system: Σ side·Δδ₀ = 0 over the stars (no catalogue σ given)', (s) => s.dec, (i) => Math.sign(side[i]));
     sum('rate of the declination system: Σ side·Δμδ = 0 over the stars (no catalogue σ given)', (s) => s.pmDec, (i) => Math.sign(side[i]));
   }
@@ -101,47 +128,117 @@ function constraintsOf(observations: readonly JointObservation[], stars: readonl
   return out;
 }
 
+/** Partials of one right-ascension row on the per-night instrument terms (joint units: ms, ms/day, mas). */
+function raInstrumentPartials(o: JointObservation): Record<'clockOffset' | SegmentableTerm, number> {
+  return {
+    clockOffset: -MAS_PER_MS * o.cosDec, clockRate: -MAS_PER_MS * o.cosDec * o.clockDtDays,
+    azimuth: -o.cosDec * o.mayerA, level: -o.cosDec * o.mayerB, collimation: -o.cosDec * o.mayerC, zeroPoint: 0,
+  };
+}
+
+const RA_SEGMENT_TERMS = ['clockRate', 'azimuth', 'level', 'collimation'] as const;
+
 /**
  * The linearised joint problem (DESIGN §4) in mas: row residuals are the nightly O − C, partials
  * ∂C/∂parameter. Right ascension: Δα*₀ 1, Δμα* (t − T₀), Δϖ −cos δ ∂H/∂ϖ, Δκ −cos δ ∂H/∂κ,
  * clock −15.041 cos δ per ms, a, b, c −cos δ × Mayer's factor (they enter the observed side);
- * temperature (T − T_ref) as a shift eastward on the sky. Zenith distance: s = ∂z/∂δ on Δδ₀ and
- * Δμδ (t − T₀), ∂z/∂ϖ, ∂z/∂κ, zero point −1, flexure −sin z, refraction scale −R.
+ * temperature (T − T_ref) as a shift eastward on the sky; diurnal-aberration scale ±0.32″ cos φ
+ * (common-terms.ts). Zenith distance: s = ∂z/∂δ on Δδ₀ and Δμδ (t − T₀), ∂z/∂ϖ, ∂z/∂κ, zero
+ * point −1, flexure −sin z, refraction scale −R, latitude variation ∂z/∂φ × (cos, sin)(2πt/P).
+ * A term held per segment (segment-terms.ts) is a global whose value is the term's whole value,
+ * not a correction: the night's own value (partial × nightly) is added back to the row's O − C.
  */
-export function buildJointProblem(model: JointModel, stars: readonly StarListRow[], nights: readonly JointNight[], observations: readonly JointObservation[]): { problem: SolverProblem; layout: JointLayout } {
+export function buildJointProblem(model: JointModel, stars: readonly StarListRow[], nights: readonly JointNight[], observations: readonly JointObservation[], context: JointProblemContext = {}): { problem: SolverProblem; layout: JointLayout } {
   const names: string[] = [];
-  const g = globalLayout(model, stars, names);
+  const notEstimated: string[] = [];
+  const g0 = globalLayout(model, stars, names);
   const l = localLayout(model);
-  const rows = new ObservationRowsBuilder(observations.length * 2, 6);
+  const { segments, nightSegment } = segmentTerms(model, nights, observations, context.events ?? [], names);
+  const g = g0;
+  const diurnalMas = diurnalAberrationMas(context.latitudeRad ?? 0, context.heightM ?? 0);
+  if (g.temperatureRa >= 0 && observations.every((o) => Math.abs(o.temperatureC - model.referenceTemperatureC) < 1e-9)) {
+    notEstimated.push('temperature coefficients: the archive records no temperatures (every transit at the reference temperature), so they were not estimated');
+  }
+  const rows = new ObservationRowsBuilder(observations.length * 2, 8);
   const raRow = new Int32Array(observations.length).fill(-1), zenithRow = new Int32Array(observations.length).fill(-1);
+  const noTemperature = notEstimated.length > 0;
   const put = (index: number, partial: number): void => { if (index >= 0) rows.addGlobal(index, partial); };
   const putLocal = (index: number, partial: number): void => { if (index >= 0) rows.addLocal(index, partial); };
+  const segmentOf = (term: SegmentableTerm, o: JointObservation): TermSegment | null => { const k = nightSegment[term][o.night]; return k >= 0 ? segments[k] : null; };
+  const putSegment = (segment: TermSegment, o: JointObservation, partial: number): void => {
+    put(segment.value, partial); put(segment.drift, (partial * (o.ttDaysSinceJ2000 - segment.referenceTtDays)) / YEAR_DAYS);
+  };
   observations.forEach((o, k) => {
     const s = g.star[o.star];
-    const dT = o.temperatureC - model.referenceTemperatureC;
+    const dT = noTemperature ? 0 : o.temperatureC - model.referenceTemperatureC;
     const phase = (2 * Math.PI * o.ttDaysSinceJ2000) / YEAR_DAYS;
-    raRow[k] = rows.beginRow(l.raLocalCount > 0 ? 2 * o.night : -1, o.ocRaMas, o.nightlyOutlierRa ? 0 : o.logWeight / o.sigmaRaMas ** 2);
+    const p = raInstrumentPartials(o);
+    let raAddBack = 0;
+    for (const term of RA_SEGMENT_TERMS) { if (segmentOf(term, o)) raAddBack += p[term] * nightlyValue(nights[o.night], term); }
+    const raWeight = o.nightlyOutlierRa ? 0 : (o.logWeight / o.sigmaRaMas ** 2) * (context.raWeightFactor?.[k] ?? 1);
+    raRow[k] = rows.beginRow(l.raLocalCount > 0 ? 2 * o.night : -1, o.ocRaMas + raAddBack, raWeight);
     put(s.ra, 1); put(s.pmRa, o.yearsFromEpoch); put(s.parallax, -o.cosDec * o.hourAnglePerParallax);
-    put(g.deltaKappa, -o.cosDec * o.hourAnglePerAberration); put(g.temperatureRa, dT);
+    put(g.deltaKappa, -o.cosDec * o.hourAnglePerAberration); if (!noTemperature) put(g.temperatureRa, dT);
     if (g.seasonal.length > 0) { put(g.seasonal[0], Math.cos(phase)); put(g.seasonal[1], Math.sin(phase)); }
-    putLocal(l.clockOffset, -MAS_PER_MS * o.cosDec); putLocal(l.clockRate, -MAS_PER_MS * o.cosDec * o.clockDtDays);
-    putLocal(l.azimuth, -o.cosDec * o.mayerA); putLocal(l.level, -o.cosDec * o.mayerB); putLocal(l.collimation, -o.cosDec * o.mayerC);
+    put(g.diurnalAberrationScale, diurnalPartialMas(o, diurnalMas));
+    for (const term of RA_SEGMENT_TERMS) { const segment = segmentOf(term, o); if (segment) putSegment(segment, o, p[term]); }
+    putLocal(l.clockOffset, p.clockOffset); putLocal(l.clockRate, p.clockRate);
+    putLocal(l.azimuth, p.azimuth); putLocal(l.level, p.level); putLocal(l.collimation, p.collimation);
     if (Number.isNaN(o.ocZenithMas)) return;
     const side = o.zenithPerDec;
-    zenithRow[k] = rows.beginRow(l.zeroPoint >= 0 ? 2 * o.night + 1 : -1, o.ocZenithMas, o.nightlyOutlierZenith ? 0 : o.logWeight / o.sigmaZenithMas ** 2);
+    const zeroSegment = segmentOf('zeroPoint', o);
+    const zenithWeight = o.nightlyOutlierZenith ? 0 : (o.logWeight / o.sigmaZenithMas ** 2) * (context.zenithWeightFactor?.[k] ?? 1);
+    zenithRow[k] = rows.beginRow(l.zeroPoint >= 0 ? 2 * o.night + 1 : -1, o.ocZenithMas - (zeroSegment ? nightlyValue(nights[o.night], 'zeroPoint') : 0), zenithWeight);
     put(s.dec, side); put(s.pmDec, side * o.yearsFromEpoch); put(s.parallax, o.zenithPerParallax); put(g.deltaKappa, o.zenithPerAberration);
-    put(g.flexure, -Math.sin(o.zenithRad)); put(g.refractionScale, -o.refractionMas); put(g.temperatureDec, side * dT);
+    put(g.flexure, -Math.sin(o.zenithRad)); put(g.refractionScale, -o.refractionMas); if (!noTemperature) put(g.temperatureDec, side * dT);
     if (g.seasonal.length > 0) { put(g.seasonal[2], side * Math.cos(phase)); put(g.seasonal[3], side * Math.sin(phase)); }
+    if (g.latitudeVariation.length > 0) {
+      const dz = zenithPerLatitude(o);
+      latitudePhases(o.ttDaysSinceJ2000, model.latitudeVariationPeriodsDays).forEach((ph, i) => { put(g.latitudeVariation[i][0], dz * Math.cos(ph)); put(g.latitudeVariation[i][1], dz * Math.sin(ph)); });
+    }
+    if (zeroSegment) putSegment(zeroSegment, o, -1);
     putLocal(l.zeroPoint, -1);
   });
+  addSegmentPriorRows(rows, nights, observations, segments);
   const blockLocalCount = new Int32Array(2 * nights.length);
   for (let n = 0; n < nights.length; n++) { blockLocalCount[2 * n] = l.raLocalCount; blockLocalCount[2 * n + 1] = l.zeroPoint >= 0 ? 1 : 0; }
   const priors = priorsOf(model, stars, nights, g, l);
-  const constraints = constraintsOf(observations, stars, nights, priors, g, l);
+  const constraints = constraintsOf(model, observations, stars, nights, priors, g, l);
+  if (noTemperature) { constraints.push(...[g.temperatureRa, g.temperatureDec].map((index) => ({ label: 'temperature coefficient held at 0: no temperatures recorded', terms: [{ parameter: { kind: 'global' as const, index }, coefficient: 1 }], value: 0 }))); }
+  if (g.diurnalAberrationScale >= 0) {
+    const separable = diurnalSeparability(observations, free(model.collimation), (o) => (nightSegment.collimation[o.night] >= 0 ? -1 - nightSegment.collimation[o.night] : o.night));
+    if (!separable.separable) {
+      constraints.push({ label: `${separable.reason}: held at its adopted value (scale correction 0)`, terms: [{ parameter: { kind: 'global', index: g.diurnalAberrationScale }, coefficient: 1 }], value: 0 });
+      notEstimated.push(separable.reason);
+    }
+  }
   const localNames = ['clock offset (ms)', 'clock rate (ms/day)', 'azimuth a (mas)', 'level b (mas)', 'collimation c (mas)'].filter((_, i) => [l.clockOffset, l.clockRate, l.azimuth, l.level, l.collimation][i] >= 0);
   const problem: SolverProblem = {
     globalNames: names, blockLocalCount, rows: rows.finish(), priors, constraints,
     localName: (block, index) => `${nights[block >> 1]?.id ?? `night ${block >> 1}`} ${block % 2 === 0 ? localNames[index] : 'zero point (mas)'}`,
   };
-  return { problem, layout: { ...g, ...l, raRow, zenithRow, appliedConstraints: constraints.map((c) => c.label) } };
+  return { problem, layout: { ...g, ...l, raRow, zenithRow, appliedConstraints: constraints.map((c) => c.label), diurnalAberrationMas: diurnalMas, segments, nightSegment, notEstimated } };
+}
+
+/**
+ * A night's level readings and clock comparisons are a prior on that night's b and clock rate;
+ * when the term spans a segment the prior is on value + drift·(t − t_ref) of the segment, which
+ * the solver's single-parameter priors cannot hold, so it enters as a pseudo-observation row
+ * (block −1, residual = the night's measured value, weight 1/σ²), counted like a prior.
+ */
+function addSegmentPriorRows(rows: ObservationRowsBuilder, nights: readonly JointNight[], observations: readonly JointObservation[], segments: readonly TermSegment[]): void {
+  const ttSum = new Float64Array(nights.length), count = new Int32Array(nights.length);
+  for (const o of observations) { ttSum[o.night] += o.ttDaysSinceJ2000; count[o.night]++; }
+  for (const segment of segments) {
+    if (segment.term !== 'level' && segment.term !== 'clockRate') continue;
+    for (const n of segment.nights) {
+      const night = nights[n];
+      const sigma = segment.term === 'level' ? (night.levelPriorSigmaArcsec === null ? null : night.levelPriorSigmaArcsec * 1000)
+        : night.clockPrior?.rateSigmaSPerDay != null ? night.clockPrior.rateSigmaSPerDay * 1000 : null;
+      if (sigma === null || !(sigma > 0)) continue;
+      rows.beginRow(-1, nightlyValue(night, segment.term), 1 / sigma ** 2);
+      rows.addGlobal(segment.value, 1);
+      if (segment.drift >= 0) rows.addGlobal(segment.drift, (ttSum[n] / count[n] - segment.referenceTtDays) / YEAR_DAYS);
+    }
+  }
 }

@@ -70,7 +70,7 @@ export function withoutYear(prepared: PreparedArchive, year: number): PreparedAr
   prepared.nights.forEach((n, i) => { if (years[i] !== year) { newIndex[i] = nights.length; nights.push(n); } });
   const observations: JointObservation[] = [];
   for (const o of prepared.observations) if (newIndex[o.night] >= 0) observations.push({ ...o, night: newIndex[o.night] });
-  return { stars: prepared.stars, nights, observations, skipped: prepared.skipped };
+  return { stars: prepared.stars, nights, observations, skipped: prepared.skipped, events: prepared.events, site: prepared.site };
 }
 
 function foldOf(year: number, full: StarResult, fold: StarResult | undefined): ParallaxFold {

@@ -7,6 +7,7 @@ import type { JointModel } from './joint-model.ts';
 import type { JointNight, JointObservation } from './joint-observations.ts';
 import { fillObservationFactors } from './observation-factors.ts';
 import { reduceArchive } from './reduce-archive.ts';
+import type { SegmentEvent } from './segment-terms.ts';
 import type { SolveInputs } from './solve-inputs.ts';
 
 /** Refusal of an archive the joint solve cannot take, with the reason in words. */
@@ -21,6 +22,9 @@ export interface PreparedArchive {
   readonly observations: readonly JointObservation[];
   /** Nights the nightly reduction refused, with its reasons. */
   readonly skipped: readonly string[];
+  /** The instruments' events (segment-terms.ts) and the site (geodetic latitude rad, height m; diurnal aberration); absent: no events, latitude 0. */
+  readonly events?: readonly SegmentEvent[];
+  readonly site?: { readonly latitudeRad: number; readonly heightM: number };
 }
 
 /** Refuses a prepared archive with fewer than two nights or two observed stars (nothing separates stars from the instrument). */
@@ -38,9 +42,12 @@ export function checkSolvable(prepared: PreparedArchive): void {
  */
 export async function prepareArchive(inputs: SolveInputs, model: JointModel, timeScale: TimeScale, control: TaskControl): Promise<PreparedArchive> {
   const reduced = await reduceArchive(inputs, model, timeScale, control);
-  const prepared = { stars: inputs.stars, nights: reduced.nights, observations: reduced.observations, skipped: reduced.skipped };
-  checkSolvable(prepared);
   const s = inputs.site.site;
+  const prepared = {
+    stars: inputs.stars, nights: reduced.nights, observations: reduced.observations, skipped: reduced.skipped,
+    events: (inputs.events ?? []).map((e) => ({ instrumentId: e.instrumentId, utcMjd: e.utcMjd, kind: e.kind })), site: { latitudeRad: s.latitudeDeg * DEG, heightM: s.heightM },
+  };
+  checkSolvable(prepared);
   const site: Site = { latitudeRad: s.latitudeDeg * DEG, longitudeRad: s.longitudeDeg * DEG, heightM: s.heightM };
   fillObservationFactors(reduced.observations, inputs.stars, site, timeScale);
   return prepared;

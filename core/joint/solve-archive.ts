@@ -1,10 +1,12 @@
 import { jointSolve, type JointSolution, type SolveProgress } from '../solver/index.ts';
 import type { TaskControl } from '../task/task-control.ts';
 import type { TimeScale } from '../time/timescale.ts';
-import { buildJointProblem, type JointLayout } from './build-joint-problem.ts';
+import { buildJointProblem, type JointLayout, type JointProblemContext } from './build-joint-problem.ts';
+import { latitudeVariationResults, segmentResults } from './term-results.ts';
 import { commonModeSeries, type InstrumentCommonMode } from './common-mode.ts';
 import { describeDegeneracies } from './degeneracy-words.ts';
-import type { JointModel } from './joint-model.ts';
+import type { JointModel, SegmentableTerm } from './joint-model.ts';
+import { estimateVarianceComponents } from './variance-components.ts';
 import type { JointNight, JointObservation } from './joint-observations.ts';
 import { prepareArchive, type PreparedArchive } from './prepare-archive.ts';
 import { correlationOf, instrumentSeries, type CorrelationMatrix, type NightInstrumentTerms } from './solve-outputs.ts';
@@ -41,8 +43,44 @@ export interface ArchiveSolveResult {
   readonly correlation: CorrelationMatrix;
   /** Per night the instrument terms as solved, with errors. */
   readonly instrumentSeries: readonly NightInstrumentTerms[];
+  /** Instrument terms held per segment between events: value (and drift) of each segment with σ (segment-terms.ts). */
+  readonly segments: readonly SegmentResult[];
+  /** Latitude variation Δφ(t) = Σ cos·cos(2πt/P) + sin·sin(2πt/P) per period (t: TT days since J2000.0), arcsec; empty when not estimated. */
+  readonly latitudeVariation: readonly LatitudeVariationResult[];
+  /** Variance components (model.varianceComponents): factors on the stated σ per star and per night; null when not asked. */
+  readonly varianceComponents: VarianceComponentsResult | null;
   /** Diagnostics: each star on the parallax/aberration dial with its parallax factors; each instrument's common-mode series. */
   readonly signatures: { readonly stars: readonly StarSignature[]; readonly instruments: readonly InstrumentCommonMode[] };
+}
+
+/** One segment of one instrument term: value at its reference epoch (s/day for the clock rate, arcsec otherwise) and drift per Julian year, with 1σ. */
+export interface SegmentResult {
+  readonly term: SegmentableTerm;
+  readonly instrumentId: string;
+  readonly number: number;
+  /** The opening and closing events (UTC MJD; null: start or end of the archive). */
+  readonly fromUtcMjd: number | null;
+  readonly toUtcMjd: number | null;
+  readonly nights: number;
+  readonly referenceTtDaysSinceJ2000: number;
+  readonly value: number; readonly valueSigma: number;
+  readonly driftPerYear: number | null; readonly driftSigmaPerYear: number | null;
+}
+
+export interface LatitudeVariationResult {
+  readonly periodDays: number;
+  readonly cosArcsec: number; readonly cosSigmaArcsec: number;
+  readonly sinArcsec: number; readonly sinSigmaArcsec: number;
+  /** √(cos² + sin²) and its σ from the covariance (first order; biased upward by ~σ²/2A when A is a few σ). */
+  readonly amplitudeArcsec: number; readonly amplitudeSigmaArcsec: number;
+}
+
+export interface VarianceComponentsResult {
+  readonly stars: readonly { readonly id: string; readonly raFactor: number; readonly zenithFactor: number; readonly raRedundancy: number; readonly zenithRedundancy: number }[];
+  readonly nights: readonly { readonly id: string; readonly factor: number; readonly redundancy: number }[];
+  readonly iterations: number;
+  readonly converged: boolean;
+  readonly keptAtOne: number;
 }
 
 function value(solution: JointSolution, index: number, scale = 1): [number | null, number | null] {
@@ -61,8 +99,11 @@ export async function solveArchive(inputs: SolveInputs, model: JointModel, timeS
 }
 
 /** The solver run of one model on a prepared archive: the problem, its layout and the solution (no outputs). */
-export function solveProblem(prepared: PreparedArchive, model: JointModel, control: TaskControl, onSolveProgress?: (p: SolveProgress) => void): { layout: JointLayout; solution: JointSolution } {
-  const { problem, layout } = buildJointProblem(model, prepared.stars, prepared.nights, prepared.observations);
+export function solveProblem(prepared: PreparedArchive, model: JointModel, control: TaskControl, onSolveProgress?: (p: SolveProgress) => void,
+  weights: Pick<JointProblemContext, 'raWeightFactor' | 'zenithWeightFactor'> = {}): { layout: JointLayout; solution: JointSolution } {
+  const { problem, layout } = buildJointProblem(model, prepared.stars, prepared.nights, prepared.observations, {
+    events: prepared.events, latitudeRad: prepared.site?.latitudeRad, heightM: prepared.site?.heightM, ...weights,
+  });
   const solution = jointSolve(problem, {
     robust: model.robustIterations > 1 ? { maxIterations: model.robustIterations } : false,
     onProgress: onSolveProgress, cancel: { get cancelled() { return control.cancellation.isCancelled; } },
@@ -91,22 +132,39 @@ export function starResults(solution: JointSolution, layout: JointLayout, catalo
 /** The joint solve of an already prepared archive (prepare-archive.ts) under `model`; see solveArchive. */
 export function solvePrepared(prepared: PreparedArchive, model: JointModel, control: TaskControl, onSolveProgress?: (p: SolveProgress) => void): ArchiveSolveResult {
   const { stars: catalogue, nights, observations } = prepared;
-  const { layout, solution } = solveProblem(prepared, model, control, onSolveProgress);
+  let weights: Pick<JointProblemContext, 'raWeightFactor' | 'zenithWeightFactor'> = {};
+  let varianceComponents: VarianceComponentsResult | null = null;
+  if (model.varianceComponents) {
+    const vc = estimateVarianceComponents(observations, catalogue.length, nights.length, (ra, z) => solveProblem(prepared, model, control, undefined, { raWeightFactor: ra, zenithWeightFactor: z }));
+    weights = { raWeightFactor: vc.raWeight, zenithWeightFactor: vc.zenithWeight };
+    const observed = new Set(observations.map((o) => o.star));
+    varianceComponents = {
+      stars: vc.factors.stars.filter((f) => observed.has(f.index)).map((f) => ({ id: catalogue[f.index].id, raFactor: f.raFactor, zenithFactor: f.zenithFactor, raRedundancy: f.raRedundancy, zenithRedundancy: f.zenithRedundancy })),
+      nights: vc.factors.nights.map((f) => ({ id: nights[f.index].id, factor: f.factor, redundancy: f.redundancy })),
+      iterations: vc.factors.iterations, converged: vc.factors.converged, keptAtOne: vc.factors.keptAtOne,
+    };
+  }
+  const { layout, solution } = solveProblem(prepared, model, control, onSolveProgress, weights);
   const stars = starResults(solution, layout, catalogue, observations);
   const [dk, sk] = value(solution, layout.deltaKappa, 1e-3);
   const [f, sf] = value(solution, layout.flexure, 1e-3);
   const [tr, str] = value(solution, layout.temperatureRa, 1e-3), [td, std] = value(solution, layout.temperatureDec, 1e-3);
   const [rs, srs] = value(solution, layout.refractionScale);
+  const [ds, sds] = layout.appliedConstraints.some((c) => c.startsWith('diurnal-aberration scale')) ? [null, null] : value(solution, layout.diurnalAberrationScale);
   const global = {
     deltaKappaArcsec: dk, deltaKappaSigmaArcsec: sk, flexureArcsec: f === null ? null : model.flexureAprioriArcsec + f, flexureSigmaArcsec: sf,
     temperatureRaArcsecPerC: tr, temperatureRaSigmaArcsecPerC: str, temperatureDecArcsecPerC: td, temperatureDecSigmaArcsecPerC: std,
     refractionScale: rs, refractionScaleSigma: srs,
+    diurnalAberrationScale: ds, diurnalAberrationScaleSigma: sds,
   };
   const series = instrumentSeries(solution, layout, nights, observations);
   const notes = [...prepared.skipped.map((s) => `night not used: ${s}`), ...layout.appliedConstraints.map((c) => `constraint applied: ${c}`), ...solution.warnings];
+  if (varianceComponents && varianceComponents.keptAtOne > 0) notes.push(`variance components: ${varianceComponents.keptAtOne} star or night group(s) with redundancy under 5 kept at factor 1`);
+  if (varianceComponents && !varianceComponents.converged) notes.push(`variance components: not converged in ${varianceComponents.iterations} passes (a factor still moved by more than 1 %)`);
   return {
     stars, global, unitWeightError: solution.unitWeightError, chiSquare: solution.chiSquare, degreesOfFreedom: solution.degreesOfFreedom,
-    degeneracies: describeDegeneracies(solution, observations, catalogue, layout), notes,
+    degeneracies: [...layout.notEstimated, ...describeDegeneracies(solution, observations, catalogue, layout)], notes,
+    segments: segmentResults(solution, layout), latitudeVariation: latitudeVariationResults(solution, layout, model), varianceComponents,
     nights, observations, layout, solution, correlation: correlationOf(solution), instrumentSeries: series,
     signatures: { stars: starSignatures(solution, layout, catalogue, observations), instruments: commonModeSeries(solution, layout, series, observations) },
   };

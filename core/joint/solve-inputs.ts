@@ -1,6 +1,6 @@
 import { readArchiveFolder } from '../archive-folder/archive-folder.ts';
 import { dateMjd } from '../archive-folder/folder-text.ts';
-import type { NightRecord } from '../archive/records.ts';
+import type { InstrumentEventRecord, NightRecord } from '../archive/records.ts';
 import { parseClockComparisons, type ClockComparisonRow } from '../formats/clock-comparisons.ts';
 import { describeRejections } from '../formats/parse-result.ts';
 import { parseSiteDescription, type SiteDescription } from '../formats/site-description.ts';
@@ -15,6 +15,8 @@ export interface SolveInputs {
   readonly comparisons: readonly ClockComparisonRow[];
   /** The folder's nights (weather, level readings), by local date MJD and instrument: key `${mjd}/${instrumentId}`. */
   readonly nights: ReadonlyMap<string, NightRecord>;
+  /** The instruments' events (adjustments, relevellings, clock changes …): they cut per-segment terms. */
+  readonly events?: readonly InstrumentEventRecord[];
 }
 
 export function nightKey(nightDateMjd: number, instrumentId: string): string {
@@ -43,5 +45,5 @@ export function readSolveInputs(files: ReadonlyMap<string, Uint8Array>): { input
   }
   if (problems.length > 0 || site.rows.length !== 1) return { inputs: null, problems: problems.length > 0 ? problems : ['site.json must describe exactly one site'] };
   const nights = new Map(folder.content.nights.map((n) => [nightKey(dateMjd(n.localDate), n.instrumentId), n]));
-  return { inputs: { site: site.rows[0], stars: stars.rows, transits, comparisons: comparisons.rows, nights }, problems };
+  return { inputs: { site: site.rows[0], stars: stars.rows, transits, comparisons: comparisons.rows, nights, events: folder.content.events }, problems };
 }

@@ -1,6 +1,8 @@
 import { ObservationFlag, type JointSolution } from '../solver/index.ts';
 import type { StarListRow } from '../formats/star-list.ts';
 import type { JointLayout } from './build-joint-problem.ts';
+import type { SegmentableTerm } from './joint-model.ts';
+import type { TermSegment } from './segment-terms.ts';
 import type { JointNight, JointObservation } from './joint-observations.ts';
 
 /** The correlation matrix of the star and global parameters, in the solver's order (names as in core/joint/build-joint-problem.ts, unit in brackets). */
@@ -36,7 +38,8 @@ export interface NightInstrumentTerms {
 /**
  * Per-night instrument series (clock offset s, rate s/day, a, b, c and zero point arcsec):
  * the locals of block 2n (right ascension) and 2n+1 (zero point) converted from ms, ms/day and
- * mas and added to the nightly reduction's constants, as JointNight.nightly documents.
+ * mas and added to the nightly reduction's constants, as JointNight.nightly documents; a term
+ * held per segment gives its segment's value (and drift) at the night's mean time instead.
  */
 export function instrumentSeries(solution: JointSolution, layout: JointLayout, nights: readonly JointNight[], observations: readonly JointObservation[]): NightInstrumentTerms[] {
   const tt = new Float64Array(nights.length), temperature = new Float64Array(nights.length), count = new Int32Array(nights.length);
@@ -48,12 +51,17 @@ export function instrumentSeries(solution: JointSolution, layout: JointLayout, n
       return [base + solution.localEstimate[k] * scale, solution.localError[k] * scale];
     };
     const v = night.nightly;
+    const meanTt = tt[n] / Math.max(count[n], 1);
+    const spanned = (term: SegmentableTerm, perNight: [number, number | null]): [number, number | null] => {
+      const k = layout.nightSegment[term][n];
+      return k < 0 ? perNight : segmentValueAt(solution, layout.segments[k], meanTt);
+    };
     const [clockOffsetS, clockOffsetSigmaS] = term(2 * n, layout.clockOffset, v.clockOffsetS, 1e-3);
-    const [clockRateSPerDay, clockRateSigmaSPerDay] = term(2 * n, layout.clockRate, v.clockRateSPerDay, 1e-3);
-    const [azimuthArcsec, azimuthSigmaArcsec] = term(2 * n, layout.azimuth, v.azimuthArcsec, 1e-3);
-    const [levelArcsec, levelSigmaArcsec] = term(2 * n, layout.level, v.levelArcsec, 1e-3);
-    const [collimationArcsec, collimationSigmaArcsec] = term(2 * n, layout.collimation, v.collimationArcsec, 1e-3);
-    const [zeroPointArcsec, zeroPointSigmaArcsec] = term(2 * n + 1, layout.zeroPoint, v.zenithZeroArcsec, 1e-3);
+    const [clockRateSPerDay, clockRateSigmaSPerDay] = spanned('clockRate', term(2 * n, layout.clockRate, v.clockRateSPerDay, 1e-3));
+    const [azimuthArcsec, azimuthSigmaArcsec] = spanned('azimuth', term(2 * n, layout.azimuth, v.azimuthArcsec, 1e-3));
+    const [levelArcsec, levelSigmaArcsec] = spanned('level', term(2 * n, layout.level, v.levelArcsec, 1e-3));
+    const [collimationArcsec, collimationSigmaArcsec] = spanned('collimation', term(2 * n, layout.collimation, v.collimationArcsec, 1e-3));
+    const [zeroPointArcsec, zeroPointSigmaArcsec] = spanned('zeroPoint', term(2 * n + 1, layout.zeroPoint, v.zenithZeroArcsec, 1e-3));
     return {
       id: night.id, instrumentId: night.instrumentId, nightDateMjd: night.nightDateMjd,
       ttDaysSinceJ2000: tt[n] / Math.max(count[n], 1), temperatureC: temperature[n] / Math.max(count[n], 1), transits: count[n],
@@ -61,6 +69,16 @@ export function instrumentSeries(solution: JointSolution, layout: JointLayout, n
       levelArcsec, levelSigmaArcsec, collimationArcsec, collimationSigmaArcsec, zeroPointArcsec, zeroPointSigmaArcsec,
     };
   });
+}
+
+/** A segment's value at TT `ttDays` (days since J2000.0) in the series' unit (s/day or arcsec: the joint unit / 1000) with its σ from the covariance of value and drift. */
+export function segmentValueAt(solution: JointSolution, segment: TermSegment, ttDays: number): [number, number] {
+  const n = solution.globalNames.length, i = segment.value, j = segment.drift;
+  const dt = j < 0 ? 0 : (ttDays - segment.referenceTtDays) / 365.25;
+  const value = solution.globalEstimate[i] + (j < 0 ? 0 : dt * solution.globalEstimate[j]);
+  const c = solution.globalCovariance;
+  const variance = c[i * n + i] + (j < 0 ? 0 : dt * dt * c[j * n + j] + 2 * dt * c[i * n + j]);
+  return [value * 1e-3, Math.sqrt(Math.max(variance, 0)) * 1e-3];
 }
 
 const FLAG_NAMES: Record<number, string> = Object.fromEntries(Object.entries(ObservationFlag).map(([name, code]) => [code, name]));

@@ -18,8 +18,9 @@ beforeAll(async () => {
   const temperatures = hot.archive.nights.map((n) => n.weather!.temperatureC).sort((a, b) => a - b);
   spreadArcsec = 0.05 * (temperatures[Math.floor(0.95 * temperatures.length)] - temperatures[Math.floor(0.05 * temperatures.length)]);
   withTerm = [await solve(base.inputs, modelFor(base.archive, { robustIterations: 1, temperature: 'free' })), await solve(hot.inputs, modelFor(hot.archive, { robustIterations: 1, temperature: 'free' }))];
-  without = await solve(hot.inputs, modelFor(hot.archive, { robustIterations: 1 }));
-  clean = await solve(base.inputs, modelFor(base.archive, { robustIterations: 1 }));
+  // Left out explicitly: temperature is free by default when the archive records temperatures.
+  without = await solve(hot.inputs, modelFor(hot.archive, { robustIterations: 1, temperature: 'absent' }));
+  clean = await solve(base.inputs, modelFor(base.archive, { robustIterations: 1, temperature: 'absent' }));
 }, 120_000);
 
 describe('joint solve separates a common-mode thermal drift from parallax', () => {
