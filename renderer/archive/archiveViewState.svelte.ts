@@ -25,6 +25,8 @@ export class ArchiveViewState {
   /** The outcome of the last edit, for the status line. */
   status = $state('');
   problem = $state<string | null>(null);
+  /** Called after an edit was made (the nights' unit-weight errors are then reduced again). */
+  onEdited: () => void = () => {};
   readonly #database: ArchiveDatabase;
   readonly #editor: ArchiveEditor;
 
@@ -105,6 +107,7 @@ export class ArchiveViewState {
     try {
       this.status = await edit();
       made = true;
+      this.onEdited();
     } catch (error) {
       this.status = `Not changed: ${error instanceof Error ? error.message : String(error)}.`;
     }

@@ -3,6 +3,7 @@ import { parseToWorker, type FromWorker, type TaskKind, type TaskRequest, type T
 import { runEclipticField, type EclipticFieldRequest } from './tasks/eclipticField.ts';
 import { EXCHANGE_KINDS, runExchangeTask, type ExchangeRequest } from './tasks/exchangeTasks.ts';
 import { runTonightProgramme, type TonightProgrammeRequest } from './tasks/tonightProgramme.ts';
+import { runNightQuality, type NightQualityRequest } from './tasks/nightQuality.ts';
 import { runJointSolve, runSolveFingerprint, type JointSolveRequest, type SolveFingerprintRequest } from './tasks/jointSolve.ts';
 
 /** Runs one request under a control; one entry per task kind. */
@@ -14,6 +15,7 @@ export const TASKS: TaskTable = {
   'tonight-programme': (request, control) => runTonightProgramme(request as TonightProgrammeRequest, control),
   'joint-solve': (request, control) => runJointSolve(request as JointSolveRequest, control),
   'solve-fingerprint': (request) => runSolveFingerprint(request as SolveFingerprintRequest),
+  'night-quality': (request, control) => runNightQuality(request as NightQualityRequest, control),
   ...(Object.fromEntries(EXCHANGE_KINDS.map((kind) => [kind, (request: TaskRequest, control: TaskControl) => runExchangeTask(request as ExchangeRequest, control)])) as Record<ExchangeRequest['kind'], TaskRunner>),
 };
 

@@ -2,6 +2,7 @@ import type { EclipticFieldRequest, EclipticFieldResult } from './tasks/ecliptic
 import { isExchangeKind, type ExchangeRequest, type ExchangeResult } from './tasks/exchangeTasks.ts';
 import type { TonightProgrammeRequest, TonightProgrammeResult } from './tasks/tonightProgramme.ts';
 import type { JointSolveRequest, JointSolveResult, SolveFingerprintRequest, SolveFingerprintResult } from './tasks/jointSolve.ts';
+import type { NightQualityRequest, NightQualityResult } from './tasks/nightQuality.ts';
 
 /**
  * The messages between the renderer and the compute worker. Hand-written discriminated unions:
@@ -9,8 +10,8 @@ import type { JointSolveRequest, JointSolveResult, SolveFingerprintRequest, Solv
  */
 
 /** What a job computes; one member per task the worker knows. */
-export type TaskRequest = EclipticFieldRequest | ExchangeRequest | TonightProgrammeRequest | JointSolveRequest | SolveFingerprintRequest;
-export type TaskResult = EclipticFieldResult | ExchangeResult | TonightProgrammeResult | JointSolveResult | SolveFingerprintResult;
+export type TaskRequest = EclipticFieldRequest | ExchangeRequest | TonightProgrammeRequest | JointSolveRequest | SolveFingerprintRequest | NightQualityRequest;
+export type TaskResult = EclipticFieldResult | ExchangeResult | TonightProgrammeResult | JointSolveResult | SolveFingerprintResult | NightQualityResult;
 export type TaskKind = TaskRequest['kind'];
 
 export type ToWorker =
@@ -58,6 +59,9 @@ export function parseToWorker(message: unknown): ToWorker | string {
   if ((request.kind === 'joint-solve' || request.kind === 'solve-fingerprint') && typeof request.databaseName === 'string') {
     // The task reads the model and selection as typed by the view; core checks the archive it reads.
     return { type: 'start', jobId: message.jobId, request: request as unknown as JointSolveRequest | SolveFingerprintRequest };
+  }
+  if (request.kind === 'night-quality' && typeof request.databaseName === 'string') {
+    return { type: 'start', jobId: message.jobId, request: { kind: 'night-quality', databaseName: request.databaseName } };
   }
   if (isExchangeKind(request.kind) && typeof request.databaseName === 'string') {
     // Structured clone keeps the shape; each Exchange task checks its own fields as it reads them.

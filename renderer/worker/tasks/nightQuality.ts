@@ -1,0 +1,91 @@
+import type { NightRecord, TransitRecord } from '../../../core/archive/records.ts';
+import { DEFAULT_JOINT_MODEL } from '../../../core/joint/joint-model.ts';
+import { TaskCancelledError, type TaskControl } from '../../../core/task/task-control.ts';
+import { bundledEarthOrientationTable } from '../../../core/time/bundled-earth-orientation.ts';
+import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
+import { TimeScale } from '../../../core/time/timescale.ts';
+import type { NightQuality } from '../../archive/nightQuality.ts';
+import { NightQualityCache } from '../../archive/nightQualityCache.ts';
+import { archiveContextKey, nightQualityKey } from '../../archive/nightQualityKey.ts';
+import { reduceStoredNights } from '../../archive/reduceStoredNights.ts';
+import { ArchiveDatabase } from '../../store/database.ts';
+
+export interface NightQualityRequest {
+  readonly kind: 'night-quality';
+  readonly databaseName: string;
+}
+
+export interface NightQualityResult {
+  readonly kind: 'night-quality';
+  /** One entry per visible night of the archive, in no particular order. */
+  readonly nights: readonly NightQuality[];
+  /** Nights taken from the cache (unchanged since their last reduction) and nights reduced now. */
+  readonly reused: number;
+  readonly reduced: number;
+}
+
+/** Nights per chunk: one folder round trip, then a yield so a cancel and the UI's messages get in. */
+export const NIGHT_QUALITY_CHUNK = 20;
+
+/**
+ * The per-session cache, one per database name, held in the worker: it lives as long as the app
+ * window, survives closing and reopening the Archive view, and keeps the nights finished before a
+ * cancel. Not persisted: the results are derived data, rebuilt in the background in a few
+ * minutes at most, and keeping them out of the schema keeps them out of bundles and backups.
+ */
+const CACHES = new Map<string, NightQualityCache>();
+
+export function nightQualityCache(databaseName: string): NightQualityCache {
+  let cache = CACHES.get(databaseName);
+  if (cache === undefined) CACHES.set(databaseName, (cache = new NightQualityCache()));
+  return cache;
+}
+
+let timeScale: TimeScale | null = null;
+
+/**
+ * Reduces every visible night of the archive whose change key (nightQualityKey.ts) is not in the
+ * cache, in chunks of NIGHT_QUALITY_CHUNK nights with progress in nights, and returns every
+ * night's quality. A cancel is seen between chunks; the nights done by then stay cached.
+ */
+export async function runNightQuality(request: NightQualityRequest, control: TaskControl): Promise<NightQualityResult> {
+  const database = new ArchiveDatabase(request.databaseName);
+  try {
+    const visible = <T extends { readonly visibility: string }>(rows: readonly T[]): T[] => rows.filter((r) => r.visibility === 'visible');
+    const [sites, instruments, events, stars, nights, transits] = await Promise.all([
+      database.sites.toArray(), database.instruments.toArray(), database.instrumentEvents.toArray(),
+      database.stars.toArray(), database.nights.toArray(), database.transits.toArray(),
+    ]).then(([a, b, c, d, e, f]) => [visible(a), visible(b), visible(c), visible(d), visible(e), visible(f)] as const);
+    const cache = nightQualityCache(request.databaseName);
+    const byNight = new Map<string, TransitRecord[]>();
+    for (const t of transits) {
+      const list = byNight.get(t.nightId);
+      if (list === undefined) byNight.set(t.nightId, [t]);
+      else list.push(t);
+    }
+    if (sites.length !== 1) {
+      const reason = `the archive holds ${sites.length} visible sites; the nightly reduction reads one site (merge or remove sites first)`;
+      return { kind: 'night-quality', reused: 0, reduced: 0, nights: nights.map((n) => ({ nightId: n.id, key: '', reduced: false, unitWeightError: null, unitWeightErrorTime: null, unitWeightErrorZenith: null, transitsUsed: 0, transitsRejected: 0, transitsUserRejected: 0, failure: reason })) };
+    }
+    const contextKey = archiveContextKey(sites[0], instruments, stars);
+    const keys = new Map(nights.map((n) => [n.id, nightQualityKey(contextKey, n, byNight.get(n.id) ?? [])]));
+    const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined);
+    cache.retainOnly(new Set(keys.keys()));
+    timeScale ??= new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
+    const apriori = { wireSigmaS: DEFAULT_JOINT_MODEL.wireSigmaS, readingSigmaArcsec: DEFAULT_JOINT_MODEL.readingSigmaArcsec };
+    control.reportProgress(0, stale.length);
+    for (let start = 0; start < stale.length; start += NIGHT_QUALITY_CHUNK) {
+      await control.yieldToHost();
+      if (control.cancellation.isCancelled) throw new TaskCancelledError('the nightly reductions of the overview', start);
+      const chunk = stale.slice(start, start + NIGHT_QUALITY_CHUNK);
+      const results = await reduceStoredNights({
+        site: sites[0], instruments, events, stars, nights: chunk, transits: chunk.flatMap((n) => byNight.get(n.id) ?? []),
+      }, { timeScale, apriori, keys });
+      for (const result of results) cache.set(result);
+      control.reportProgress(Math.min(stale.length, start + chunk.length), stale.length);
+    }
+    return { kind: 'night-quality', reused: nights.length - stale.length, reduced: stale.length, nights: nights.map((n) => cache.get(n.id, keys.get(n.id) ?? '')).filter((q): q is NightQuality => q !== undefined) };
+  } finally {
+    database.close();
+  }
+}

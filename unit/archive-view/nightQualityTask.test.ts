@@ -1,0 +1,86 @@
+// The worker task behind the overview's colours, run in Node on part of the shipped demo archive
+// (assets/demo: invented, made by the simulator with known truth in demo-truth.json). Checks:
+// every night gets a quality, a second pass reduces nothing, an edit/reject/restore reduces
+// only its night again, a cancel keeps what was done, and a night with a planted blunder (from
+// the simulator's truth) stands out from the clean nights.
+import { readFile } from 'node:fs/promises';
+import { beforeAll, describe, expect, test } from 'vitest';
+import { TaskCancelledError, UNCONTROLLED, type TaskControl } from '../../core/task/task-control.ts';
+import { ArchiveEditor } from '../../renderer/archive/archiveEditor.ts';
+import { uweClass } from '../../renderer/archive/uweClasses.ts';
+import { loadDemoIfFirstStart } from '../../renderer/demo/demoArchive.ts';
+import { ArchiveDatabase } from '../../renderer/store/database.ts';
+import { NIGHT_QUALITY_CHUNK, nightQualityCache, runNightQuality } from '../../renderer/worker/tasks/nightQuality.ts';
+import { uniqueDatabaseName } from '../store/rowFactories.ts';
+
+interface Truth { blunders: { transitId: string; kind: string }[] }
+const BLUNDER_NIGHT = 'night-2019-12-08'; // demo-truth.json: a star swapped (ML-010 written as ML-012)
+
+async function demoSubset(keepFirst: number): Promise<{ name: string; database: ArchiveDatabase; kept: string[]; truth: Truth }> {
+  const name = uniqueDatabaseName('night-quality');
+  const database = new ArchiveDatabase(name);
+  await loadDemoIfFirstStart(database, async () => new Uint8Array(await readFile('assets/demo/demo-archive.mlbundle')), '2026-12-01T00:00:00.000Z');
+  const truth = JSON.parse(await readFile('assets/demo/demo-truth.json', 'utf8')) as Truth;
+  const nights = await database.nights.orderBy('localDate').toArray();
+  const kept = [...new Set([...nights.slice(0, keepFirst).map((n) => n.id), BLUNDER_NIGHT])];
+  const dropped = nights.map((n) => n.id).filter((id) => !kept.includes(id));
+  await database.nights.bulkDelete(dropped);
+  await database.transits.where('nightId').anyOf(dropped).delete();
+  return { name, database, kept, truth };
+}
+
+describe('runNightQuality({ databaseName })', () => {
+  let subset: Awaited<ReturnType<typeof demoSubset>>;
+  beforeAll(async () => { subset = await demoSubset(16); }, 60_000);
+
+  test('reduces every night once, then takes them all from the cache', async () => {
+    expect(subset.truth.blunders.some((b) => b.transitId.startsWith(`${BLUNDER_NIGHT}/`))).toBe(true);
+    const first = await runNightQuality({ kind: 'night-quality', databaseName: subset.name }, UNCONTROLLED);
+    expect(first.nights.map((q) => q.nightId).sort()).toEqual([...subset.kept].sort());
+    expect(first).toMatchObject({ reduced: subset.kept.length, reused: 0 });
+    expect(first.nights.every((q) => q.reduced && q.unitWeightError !== null && q.transitsUsed >= 3)).toBe(true);
+    const second = await runNightQuality({ kind: 'night-quality', databaseName: subset.name }, UNCONTROLLED);
+    expect(second).toMatchObject({ reduced: 0, reused: subset.kept.length });
+    expect(second.nights).toEqual(first.nights);
+  });
+
+  test('the planted blunder night is in a worse class than most clean nights', async () => {
+    const { nights } = await runNightQuality({ kind: 'night-quality', databaseName: subset.name }, UNCONTROLLED);
+    const blunderNights = new Set(subset.truth.blunders.map((b) => b.transitId.split('/')[0]));
+    const clean = nights.filter((q) => !blunderNights.has(q.nightId)).map((q) => uweClass(q.unitWeightError) as number).sort((a, b) => a - b);
+    const median = clean[Math.floor(clean.length / 2)];
+    const blunder = nights.find((q) => q.nightId === BLUNDER_NIGHT);
+    expect(blunder?.transitsRejected).toBeGreaterThan(0);
+    expect(uweClass(blunder?.unitWeightError ?? null)).toBeGreaterThan(median);
+  });
+
+  test('rejecting a transit reduces only its night again; restoring it too, and the counts follow', async () => {
+    const editor = new ArchiveEditor(subset.database, () => 'Test Editor');
+    const night = subset.kept[3];
+    const transit = (await subset.database.transits.where('nightId').equals(night).toArray())[0];
+    await editor.setTransitRejected(transit.id, true, 'a transit');
+    const afterReject = await runNightQuality({ kind: 'night-quality', databaseName: subset.name }, UNCONTROLLED);
+    expect(afterReject).toMatchObject({ reduced: 1, reused: subset.kept.length - 1 });
+    expect(afterReject.nights.find((q) => q.nightId === night)?.transitsUserRejected).toBe(1);
+    await editor.setTransitRejected(transit.id, false, 'a transit');
+    const afterRestore = await runNightQuality({ kind: 'night-quality', databaseName: subset.name }, UNCONTROLLED);
+    expect(afterRestore.reduced).toBe(1);
+    expect(afterRestore.nights.find((q) => q.nightId === night)?.transitsUserRejected).toBe(0);
+  });
+
+  test('a cancel stops between chunks with the nights done kept in the cache', async () => {
+    const fresh = await demoSubset(NIGHT_QUALITY_CHUNK + 2);
+    let progressCalls = 0;
+    const control: TaskControl = {
+      cancellation: { get isCancelled() { return progressCalls >= 2; } },
+      reportProgress: () => { progressCalls++; },
+      yieldToHost: () => Promise.resolve(),
+    };
+    const cancelled = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, control).catch((error: unknown) => error);
+    expect(cancelled).toBeInstanceOf(TaskCancelledError);
+    expect((cancelled as TaskCancelledError).done).toBe(NIGHT_QUALITY_CHUNK);
+    expect(nightQualityCache(fresh.name).size).toBe(NIGHT_QUALITY_CHUNK);
+    const rest = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, UNCONTROLLED);
+    expect(rest).toMatchObject({ reused: NIGHT_QUALITY_CHUNK, reduced: fresh.kept.length - NIGHT_QUALITY_CHUNK });
+  });
+});
