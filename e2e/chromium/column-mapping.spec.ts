@@ -81,7 +81,7 @@ test('a transit log with other headers is mapped by keyboard, imported, and its 
   await page.getByRole('button', { name: 'Import all 3 rows' }).focus();
   await page.keyboard.press('Enter');
   await expect(page.getByTestId('import-message')).toContainText('Imported logger-march.csv');
-  await expect(page.getByTestId('archive-counts')).toContainText('1 sites · 1 instruments · 2 stars · 3 nights · 3 transits');
+  await expect(page.getByTestId('archive-counts')).toContainText('1 site · 1 instrument · 2 stars · 3 nights · 3 transits');
 
   // The rows in the Archive: star, culmination, the micrometer reading in turns, the note.
   await page.goto('./?no-demo#/archive');
@@ -104,5 +104,5 @@ test('a transit log with other headers is mapped by keyboard, imported, and its 
   await page.getByRole('button', { name: 'Check the file with this mapping' }).click();
   await expect(page.getByTestId('valid-count')).toHaveText('2');
   await page.getByRole('button', { name: 'Import all 2 rows' }).click();
-  await expect(page.getByTestId('archive-counts')).toContainText('1 sites · 1 instruments · 2 stars · 5 nights · 5 transits');
+  await expect(page.getByTestId('archive-counts')).toContainText('1 site · 1 instrument · 2 stars · 5 nights · 5 transits');
 });

@@ -54,7 +54,7 @@ test('a site, a star list and a transit log are imported through the file input,
   await importFile(page, 'log.csv', `${transitLog(3)}QX-9,upper,2026-02-01,qt-2,2026-02-01T21:07:10Z,,,1\n`, 3);
   await expect(page.getByTestId('rejects-table')).toContainText("unknown star id 'QX-9'");
   await importValidRows(page);
-  await expect(page.getByTestId('archive-counts')).toContainText('1 sites · 1 instruments · 2 stars · 3 nights · 3 transits');
+  await expect(page.getByTestId('archive-counts')).toContainText('1 site · 1 instrument · 2 stars · 3 nights · 3 transits');
   // The same log again: every row is a duplicate and nothing is doubled.
   await importFile(page, 'log.csv', transitLog(3), 0);
   await expect(page.getByTestId('import-summary')).toContainText('3 already in the archive');
@@ -67,7 +67,7 @@ test('a quota error during an import shows what to do and leaves the earlier dat
   await expect(page.getByTestId('import-failure')).toContainText('QuotaExceededError');
   await expect(page.getByTestId('import-failure')).toContainText('The data already in the archive is unchanged');
   await page.reload();
-  await expect(page.getByTestId('archive-counts')).toContainText('1 sites · 1 instruments · 2 stars · 0 nights · 0 transits');
+  await expect(page.getByTestId('archive-counts')).toContainText('1 site · 1 instrument · 2 stars · 0 nights · 0 transits');
 });
 
 for (const chunksBeforeKill of [1, 4, 6]) {
