@@ -19,8 +19,14 @@ const HORIZON_COS = Math.cos((89.5 * Math.PI) / 180);
  */
 export function applyRefraction(frame: Float64Array, t: Float64Array): void {
   if (frame[F_HAS_REFRACTION] === 0) return;
-  const a = frame[F_REFRACTION_A], b = frame[F_REFRACTION_B];
-  const cosLat = frame[F_COS_LAT], sinLat = frame[F_SIN_LAT];
+  refractTangents(frame[F_REFRACTION_A], frame[F_REFRACTION_B], frame[F_COS_LAT], frame[F_SIN_LAT], t);
+}
+
+/**
+ * `applyRefraction` with the constants given directly: A and B (rad) of refraction.ts, cos φ and
+ * sin φ of the site's latitude; refracts t[0..2] and carries t[3..8] in place, as described there.
+ */
+export function refractTangents(a: number, b: number, cosLat: number, sinLat: number, t: Float64Array): void {
   const x = t[0], y = t[1], z = t[2];
   const cosZ = x * cosLat + z * sinLat;
   if (cosZ < HORIZON_COS) return;
