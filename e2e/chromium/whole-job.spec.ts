@@ -84,7 +84,7 @@ test('the whole job from an empty profile: import, archive, tonight, solve, sign
     await importFile(page, join(folder, 'archive', 'stars.csv'));
     for (const file of simulated.transitFiles) await importFile(page, file);
     await expect(page.getByTestId('archive-counts')).toContainText(
-      `1 sites · 1 instruments · ${simulated.stars} stars · ${simulated.nights} nights · ${simulated.transits} transits`);
+      `1 site · 1 instrument · ${simulated.stars} stars · ${simulated.nights} nights · ${simulated.transits} transits`);
     await shoot(page, '2-exchange-imported');
   });
 
