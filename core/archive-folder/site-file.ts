@@ -27,6 +27,7 @@ export function writeSiteFile(site: SiteRecord, instruments: readonly Instrument
         wireIntervalsS: instrument.wireIntervalsEquatorialS,
         effectiveWavelengthUm: Number(`${instrument.effectiveWavelengthNm}e-3`),
         clockId: instrument.clockLabel, clockTimeScale: 'mean-solar', note: instrument.note,
+        ...(instrument.kind === 'fixed-camera' ? { camera: instrument.camera } : {}),
         events: events.filter((e) => e.instrumentId === instrument.id).sort((a, b) => a.utcMjd - b.utcMjd).map(eventEntry),
       };
     }),
@@ -37,8 +38,8 @@ export function writeSiteFile(site: SiteRecord, instruments: readonly Instrument
 }
 
 function zenithScaleOf(instrument: InstrumentRecord): { unit: 'turn' | 'pixel'; arcsecPerUnit: number; sense: 1 | -1 } | null {
-  if (instrument.kind === 'fixed-camera') {
-    throw new RangeError(`site.json: instrument ${instrument.id} is a fixed camera, whose description needs the camera geometry that the archive records do not hold yet`);
+  if (instrument.kind === 'fixed-camera' && instrument.camera === undefined) {
+    throw new RangeError(`site.json: instrument ${instrument.id} is a fixed camera without its camera geometry (InstrumentRecord.camera); add orientation, parity, optical centre and reference column`);
   }
   if (instrument.readingUnit === 'circle-arcsec') {
     if (instrument.readingScaleArcsecPerUnit !== 1 || instrument.readingSense !== 1) throw new RangeError(`site.json: instrument ${instrument.id} reads a circle in arcseconds with scale ${instrument.readingScaleArcsecPerUnit} and sense ${instrument.readingSense}; a circle reading must have scale 1 and sense +1`);
@@ -95,6 +96,7 @@ export function readSiteFile(bytes: Uint8Array, file: string, audit: { createdUt
       readingScaleArcsecPerUnit: scale === null ? 1 : scale.arcsecPerUnit, readingSense: scale === null ? 1 : scale.sense,
       wireIntervalsEquatorialS: d.wireIntervalsS, effectiveWavelengthNm: Number(`${d.effectiveWavelengthUm}e3`),
       clockLabel: d.clockId, note: text(raw.instruments[k].note), ...stamp,
+      ...(d.camera === null ? {} : { camera: d.camera }),
     });
     d.events.forEach((e, n) => {
       const extra = raw.instruments[k].events?.[n] ?? {};

@@ -69,6 +69,24 @@ export interface InstrumentRecord extends Importable, Audited {
   /** Which clock the times are read on, e.g. "pier clock"; free text. */
   readonly clockLabel: string;
   readonly note: string;
+  /**
+   * Detector geometry of a `fixed-camera` (core/instrument/fixed-camera.ts CameraGeometry without
+   * the scale, which is `readingScaleArcsecPerUnit`); absent for other kinds and for cameras
+   * imported before it was kept.
+   */
+  readonly camera?: CameraGeometryRecord;
+}
+
+/** A fixed camera's detector geometry, as the site description (FORMATS.md `camera`) gives it. */
+export interface CameraGeometryRecord {
+  /** Angle from the detector's +x axis (after parity) to the along-track direction, degrees, counter-clockwise on the sky. */
+  readonly orientationDeg: number;
+  /** −1 for a mirrored image. */
+  readonly parity: 1 | -1;
+  /** Optical centre [x, y], pixels. */
+  readonly opticalCentrePx: readonly [number, number];
+  /** The detector column x taken as the reference line, pixels. */
+  readonly referenceColumnPx: number;
 }
 
 export type InstrumentEventKind =

@@ -14,7 +14,7 @@ export interface CandidateTransit {
 
 /**
  * Every culmination of a programme star that falls inside one of the sessions and passes within
- * PROGRAMME_ZENITH_LIMIT_DEG of the zenith (lower culminations only for circumpolar stars), in
+ * `zenithLimitDeg` (default PROGRAMME_ZENITH_LIMIT_DEG; a zenith camera's field radius) of the zenith (lower culminations only for circumpolar stars), in
  * time order. Times from the catalogue right ascension and the approximate sidereal time
  * (precession since the catalogue epoch moves them by up to a few minutes; the exact time comes
  * from the full model later).
@@ -24,12 +24,13 @@ export function candidateTransits(
   sessions: readonly { readonly startMjd: number; readonly endMjd: number }[],
   latitudeDeg: number,
   longitudeDeg: number,
+  zenithLimitDeg: number = PROGRAMME_ZENITH_LIMIT_DEG,
 ): CandidateTransit[] {
   const out: CandidateTransit[] = [];
   stars.forEach((star, starIndex) => {
     const passages: [Culmination, number][] = [];
-    if (Math.abs(latitudeDeg - star.decDeg) <= PROGRAMME_ZENITH_LIMIT_DEG) passages.push(['upper', 0]);
-    if (180 - latitudeDeg - star.decDeg <= PROGRAMME_ZENITH_LIMIT_DEG) passages.push(['lower', Math.PI]);
+    if (Math.abs(latitudeDeg - star.decDeg) <= zenithLimitDeg) passages.push(['upper', 0]);
+    if (180 - latitudeDeg - star.decDeg <= zenithLimitDeg) passages.push(['lower', Math.PI]);
     for (const [culmination, targetHourAngle] of passages) {
       for (const session of sessions) {
         const hourAngle = approximateGmstRad(session.startMjd) + longitudeDeg * DEG - star.raDeg * DEG;

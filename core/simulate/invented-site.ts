@@ -50,3 +50,36 @@ export function inventedTransitInstrument(createdUtc: string): InstrumentRecord 
     visibility: 'visible', createdUtc, updatedUtc: createdUtc,
   };
 }
+
+/** Plate scale of the zenith camera, arcseconds per pixel (invented: a 2048-pixel detector on a short refractor). */
+export const ZENITH_CAMERA_ARCSEC_PER_PX = 1.8312;
+/** Radius of the zenith camera's usable field, degrees (invented; a star is timed only inside it). */
+export const ZENITH_CAMERA_FIELD_RADIUS_DEG = 0.5;
+/** Timing noise of one reference-column crossing of the camera, seconds (centroid timing; invented). */
+export const ZENITH_CAMERA_TIMING_NOISE_S = 0.012;
+/** Noise of one camera row offset, arcseconds (invented). */
+export const ZENITH_CAMERA_ZENITH_NOISE_ARCSEC = 0.18;
+
+/**
+ * The fixed zenith camera of the invented site: it looks straight up and times stars crossing the
+ * detector column through its optical centre; the reading is the star's row offset from the optical
+ * centre toward larger zenith distance, in pixels (orientation 0°, no mirror, so the row axis is the
+ * zenith-distance direction: core/instrument/fixed-camera.ts).
+ */
+export function inventedZenithCamera(createdUtc: string): InstrumentRecord {
+  return {
+    id: 'instrument-zenith-camera',
+    label: 'Bramblecote zenith camera (invented)',
+    kind: 'fixed-camera',
+    siteId: INVENTED_SITE.id,
+    readingUnit: 'pixel',
+    readingScaleArcsecPerUnit: ZENITH_CAMERA_ARCSEC_PER_PX,
+    readingSense: 1,
+    wireIntervalsEquatorialS: [],
+    effectiveWavelengthNm: 640,
+    clockLabel: 'camera timing clock',
+    note: 'Simulated: a fixed camera pointing at the zenith; one reference column through the optical centre; readings are row offsets in pixels.',
+    camera: { orientationDeg: 0, parity: 1, opticalCentrePx: [1024, 1024], referenceColumnPx: 1024 },
+    visibility: 'visible', createdUtc, updatedUtc: createdUtc,
+  };
+}

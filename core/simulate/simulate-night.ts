@@ -24,6 +24,10 @@ export interface NightSetting {
   readonly latitudeDeg: number;
   readonly longitudeDeg: number;
   readonly utcOffsetHours: number;
+  /** Largest zenith distance observed, degrees (the programme limit, or a zenith camera's field radius). */
+  readonly zenithLimitDeg: number;
+  /** Noise of this instrument's readings (from the options for the transit instrument). */
+  readonly noise: ObservationNoise;
 }
 
 export interface SimulatedTransit extends RecordedTransit {
@@ -69,13 +73,10 @@ export function simulateNight(setting: NightSetting, planned: PlannedNight, stat
   const levelReadings = [first, last].map((utcMjd) => ({
     utcMjd: quantizedUtcMjd(utcMjd), levelArcsec: Math.round((state.levelArcsec + random.normal(0, options.levelNoiseArcsec)) * 100) / 100,
   }));
-  const noise: ObservationNoise = {
-    wireNoiseS: options.wireNoiseS, zenithNoiseArcsec: options.zenithNoiseArcsec,
-    missedWireProbability: options.missedWireProbability, flexureArcsec: options.flexureArcsec,
-  };
+  const noise = setting.noise;
   const transits: SimulatedTransit[] = [];
   let lastTaken = -Infinity;
-  for (const candidate of candidateTransits(setting.stars, planned.sessions, setting.latitudeDeg, setting.longitudeDeg)) {
+  for (const candidate of candidateTransits(setting.stars, planned.sessions, setting.latitudeDeg, setting.longitudeDeg, setting.zenithLimitDeg)) {
     const takeIt = random.chance(0.9);
     const ownWeather = random.chance(0.6);
     if (!takeIt || candidate.approximateUtcMjd - lastTaken < MINIMUM_GAP_DAYS) continue;

@@ -49,6 +49,11 @@ export interface SimulationOptions {
   readonly deltaKappaArcsec: number;
   /** Amplitude of a 433-day latitude variation, arcseconds (0: off). */
   readonly latitudeVariationArcsec: number;
+  /**
+   * Stars added near the zenith for a fixed zenith camera beside the transit instrument (0–60);
+   * 0: no camera. The transit instrument observes them too.
+   */
+  readonly zenithCameraStarCount: number;
 }
 
 export const DEFAULT_SIMULATION_OPTIONS: SimulationOptions = {
@@ -68,6 +73,7 @@ export const DEFAULT_SIMULATION_OPTIONS: SimulationOptions = {
   thermal: { raArcsecPerC: 0, decArcsecPerC: 0, referenceTemperatureC: 10 },
   deltaKappaArcsec: 0,
   latitudeVariationArcsec: 0,
+  zenithCameraStarCount: 0,
 };
 
 /** A request: any subset of the options, the thermal term field by field. */
@@ -112,5 +118,6 @@ export function resolveSimulationOptions(request: SimulationRequest = {}): Simul
   range('thermal.referenceTemperatureC', options.thermal.referenceTemperatureC, -40, 40);
   range('deltaKappaArcsec', options.deltaKappaArcsec, -1, 1);
   range('latitudeVariationArcsec', options.latitudeVariationArcsec, 0, 1);
+  range('zenithCameraStarCount', options.zenithCameraStarCount, 0, 60, true);
   return options;
 }

@@ -31,20 +31,41 @@ export function inventStars(count: number, latitudeDeg: number, random: SeededRa
   for (let index = 0; index < count; index++) {
     const raDeg = ((index + random.between(0.1, 0.9)) * 360) / count;
     const decDeg = inventDeclination(index, latitudeDeg, random);
-    const nearby = index % 12 === 5;
-    const parallaxMas = nearby ? random.between(80, 300) : Math.exp(random.between(Math.log(1.5), Math.log(25)));
-    // Tangential speeds of 15–90 km/s: μ = v_t / (4.74 d), d in pc = 1000/ϖ (Smart, Stellar Kinematics).
-    const tangentialKmS = random.between(15, 90);
-    const pmTotalMasYr = Math.min((tangentialKmS * parallaxMas) / 4.74, 1100);
-    const pmAngle = random.between(0, 2 * Math.PI);
-    const catalogueId = `ML-${String(index + 1).padStart(3, '0')}`;
-    const id = catalogueId;
-    const truth = { id, catalogueId, raDeg, decDeg, epochJulianYear: CATALOGUE_EPOCH_JULIAN_YEAR, parallaxMas,
-      pmRaMasYr: pmTotalMasYr * Math.sin(pmAngle), pmDecMasYr: pmTotalMasYr * Math.cos(pmAngle),
-      radialVelocityKmS: random.normal(0, 25) };
-    stars.push(withCatalogue(truth, random, createdUtc));
+    stars.push(inventStar(index, raDeg, decDeg, random, createdUtc));
   }
   return stars;
+}
+
+/**
+ * Invents `count` stars that pass within `fieldRadiusDeg` of the zenith at upper culmination
+ * (|δ − φ| ≤ 0.8 · fieldRadiusDeg, so the image stays inside a zenith camera's field), right
+ * ascensions spread evenly with jitter, space motions as inventStars. They are numbered after the
+ * programme: the first gets "ML-NNN" with NNN = firstIndex + 1.
+ */
+export function inventZenithStars(count: number, firstIndex: number, latitudeDeg: number, fieldRadiusDeg: number, random: SeededRandom, createdUtc: string): ProgrammeStar[] {
+  if (!(fieldRadiusDeg > 0 && fieldRadiusDeg <= 5)) throw new RangeError(`inventZenithStars: field radius ${fieldRadiusDeg}° must be in (0, 5]`);
+  const stars: ProgrammeStar[] = [];
+  for (let k = 0; k < count; k++) {
+    const raDeg = ((k + random.between(0.1, 0.9)) * 360) / count;
+    const decDeg = latitudeDeg + random.between(-0.8, 0.8) * fieldRadiusDeg;
+    stars.push(inventStar(firstIndex + k, raDeg, decDeg, random, createdUtc));
+  }
+  return stars;
+}
+
+function inventStar(index: number, raDeg: number, decDeg: number, random: SeededRandom, createdUtc: string): ProgrammeStar {
+  const nearby = index % 12 === 5;
+  const parallaxMas = nearby ? random.between(80, 300) : Math.exp(random.between(Math.log(1.5), Math.log(25)));
+  // Tangential speeds of 15–90 km/s: μ = v_t / (4.74 d), d in pc = 1000/ϖ (Smart, Stellar Kinematics).
+  const tangentialKmS = random.between(15, 90);
+  const pmTotalMasYr = Math.min((tangentialKmS * parallaxMas) / 4.74, 1100);
+  const pmAngle = random.between(0, 2 * Math.PI);
+  const catalogueId = `ML-${String(index + 1).padStart(3, '0')}`;
+  const id = catalogueId;
+  const truth = { id, catalogueId, raDeg, decDeg, epochJulianYear: CATALOGUE_EPOCH_JULIAN_YEAR, parallaxMas,
+    pmRaMasYr: pmTotalMasYr * Math.sin(pmAngle), pmDecMasYr: pmTotalMasYr * Math.cos(pmAngle),
+    radialVelocityKmS: random.normal(0, 25) };
+  return withCatalogue(truth, random, createdUtc);
 }
 
 function inventDeclination(index: number, latitudeDeg: number, random: SeededRandom): number {

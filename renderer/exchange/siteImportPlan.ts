@@ -47,6 +47,7 @@ export async function planSiteImport(database: ArchiveDatabase, bytes: Uint8Arra
         readingScaleArcsecPerUnit: reading.scale, readingSense: reading.sense, wireIntervalsEquatorialS: instrument.wireIntervalsS,
         effectiveWavelengthNm: instrument.effectiveWavelengthUm * 1000, clockLabel: instrument.clockId,
         note: `clock time scale: ${instrument.clockTimeScale}`, visibility: 'visible', createdUtc: nowUtc, updatedUtc: nowUtc,
+        ...(instrument.camera === null ? {} : { camera: instrument.camera }),
       };
       await place('instruments', record);
       for (const [k, event] of instrument.events.entries()) {

@@ -23,6 +23,7 @@ instrument series and every planted blunder). The same options always give the s
   --thermal ARCSEC_PER_C    thermal term in both coordinates, per °C from ${D.thermal.referenceTemperatureC} °C (default 0)
   --latitude-variation ARCSEC  amplitude of a 433-day latitude variation (default 0)
   --events-per-year N       instrument adjustments, relevellings … per year (default ${D.eventsPerYear})
+  --zenith-camera-stars N   add a fixed zenith camera and N stars near the zenith (default 0: no camera)
   --force                   replace a non-empty DIR
 Progress goes to stderr. Bad arguments exit 2 with the reason.`;
 
@@ -42,6 +43,7 @@ const NUMBER_OPTIONS: Record<string, (value: number) => SimulationRequest> = {
   '--thermal': (v) => ({ thermal: { raArcsecPerC: v, decArcsecPerC: v } }),
   '--latitude-variation': (v) => ({ latitudeVariationArcsec: v }),
   '--events-per-year': (v) => ({ eventsPerYear: v }),
+  '--zenith-camera-stars': (v) => ({ zenithCameraStarCount: v }),
 };
 
 function parseArguments(args: readonly string[]): Parsed {
