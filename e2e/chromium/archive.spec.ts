@@ -9,12 +9,13 @@ async function openArchiveWithDemo(page: Page): Promise<void> {
   await expect(page.getByRole('heading', { name: 'Nights (658)' })).toBeVisible({ timeout: 30_000 });
 }
 
-const marks = (page: Page) => page.getByRole('button', { name: /^Night of \d{4}-\d{2}-\d{2}, \d+ transits$/ });
+// Each mark's name: "Night of DATE, N transits, <unit-weight error or why there is none>".
+const marks = (page: Page) => page.getByRole('button', { name: /^Night of \d{4}-\d{2}-\d{2}, \d+ transits, / });
 
 test('the overview shows one mark per demo night and opens a night by keyboard and by click', async ({ page }) => {
   await openArchiveWithDemo(page);
   await expect(marks(page)).toHaveCount(658);
-  await expect(page.getByText('Colour: transits in the night')).toBeVisible();
+  await expect(page.getByText(/^Colour: unit-weight error of the night/)).toBeVisible();
 
   // Keyboard: the first mark is in the tab order; ArrowRight moves to the second night; Enter opens it.
   await marks(page).first().focus();
@@ -24,7 +25,7 @@ test('the overview shows one mark per demo night and opens a night by keyboard a
   await page.keyboard.press('Enter');
   const date = /Night of (\S+),/.exec(second ?? '')?.[1] ?? 'no date';
   await expect(page.getByRole('heading', { name: new RegExp(`^Night of ${date}`) })).toBeVisible();
-  const count = Number(/(\d+) transits$/.exec(second ?? '')?.[1]);
+  const count = Number(/(\d+) transits,/.exec(second ?? '')?.[1]);
   await expect(page.getByText(`${count} transits, in time order`)).toBeVisible();
   await expect(page.locator('section[aria-labelledby="night-heading"] tbody tr')).toHaveCount(count);
 
@@ -92,6 +93,57 @@ test('add an instrument event (validated) and see it in the list; star list show
   await expect(counts).toHaveCount(24);
   const total = (await counts.allTextContents()).map(Number).reduce((sum, value) => sum + value, 0);
   expect(total).toBe(5599);
+});
+
+// A night with a planted blunder (assets/demo/demo-truth.json: ML-010 observed, written as ML-012).
+const BLUNDER_NIGHT = 'night-2019-12-08';
+
+test('the overview colours the demo nights by unit-weight error; a blunder night stands out; an edit reduces only its night', async ({ page }) => {
+  test.setTimeout(300_000);
+  await openArchiveWithDemo(page);
+  // The first pass reduces every night in the worker, with progress the page stays usable during.
+  await expect(page.getByText(/^Reducing nights for the overview/)).toBeVisible();
+  await marks(page).nth(5).click();
+  await expect(page.getByRole('heading', { name: /^Night of \d{4}-/ })).toBeVisible({ timeout: 5_000 });
+  await expect(page.getByText('Reduced 658 nights; 0 unchanged from the last pass.')).toBeVisible({ timeout: 240_000 });
+  const classes = await page.locator('g.mark').evaluateAll((gs) => gs.map((g) => g.getAttribute('data-uwe-class')));
+  expect(classes).toHaveLength(658);
+  const histogram = new Map<string, number>();
+  for (const c of classes) histogram.set(String(c), (histogram.get(String(c)) ?? 0) + 1);
+  const [commonest] = [...histogram].sort((a, b) => b[1] - a[1])[0];
+  expect(histogram.size, `classes seen: ${JSON.stringify([...histogram])}`).toBeGreaterThanOrEqual(3);
+  const blunder = page.locator(`g.mark[data-night-id="${BLUNDER_NIGHT}"]`);
+  const blunderClass = await blunder.getAttribute('data-uwe-class');
+  expect(blunderClass).not.toBe(commonest);
+  expect(Number(blunderClass)).toBeGreaterThan(Number(commonest));
+  await expect(blunder).toHaveAttribute('aria-label', /^Night of 2019-12-08, \d+ transits, unit-weight error \d+\.\d\d$/);
+  for (const label of ['below 1.2', '1.2 to 2', '2 to 5', '5 and above', 'not reduced']) await expect(page.locator('figcaption.legend')).toContainText(label);
+
+  // The night detail repeats it; day and night screenshots; the red theme shows no green or blue.
+  await blunder.click();
+  await expect(page.getByTestId('night-quality')).toContainText(/unit-weight error \d+\.\d\d \(right ascension/);
+  await page.screenshot({ path: 'e2e-output/screenshots/day-archive-uwe.png', fullPage: true });
+  await page.locator('figure.overview').screenshot({ path: 'e2e-output/screenshots/day-archive-uwe-overview.png' });
+  await page.getByRole('button', { name: 'Night (red)' }).click();
+  await marks(page).nth(201).focus();
+  await page.screenshot({ path: 'e2e-output/screenshots/night-archive-uwe.png', fullPage: true });
+  await page.locator('figure.overview').screenshot({ path: 'e2e-output/screenshots/night-archive-uwe-overview.png' });
+  expect(await findNonRedColours(page, 0)).toEqual([]);
+  await page.getByRole('button', { name: 'Day' }).click();
+
+  // Back to transit counts and again, by keyboard.
+  await page.getByRole('button', { name: 'Transit count', exact: true }).press('Enter');
+  await expect(page.getByText('Colour: transits in the night')).toBeVisible();
+  await expect(page.locator('g.mark rect.uwe')).toHaveCount(0);
+  await page.getByRole('button', { name: 'Unit-weight error', exact: true }).press('Enter');
+  await expect(page.locator('g.mark rect.uwe')).not.toHaveCount(0);
+
+  // Rejecting a transit reduces that night only (the others come from the worker's cache).
+  await page.getByLabel('Edits recorded as').fill('R. Vance');
+  await page.getByRole('button', { name: 'Save', exact: true }).click();
+  await page.getByRole('button', { name: /^Reject / }).first().click();
+  await expect(page.getByText('Reduced 1 night; 657 unchanged from the last pass.')).toBeVisible({ timeout: 60_000 });
+  await expect(page.getByTestId('night-quality')).toContainText('1 rejected by hand');
 });
 
 test('screenshots of the Archive with the demo, day and night; night shows no green or blue', async ({ page }) => {
