@@ -14,13 +14,14 @@ export function accumulateBlock(
   prep: PreparedProblem, block: number, weight: Float64Array, ws: BlockWorkspace, withTouched: boolean,
 ): void {
   const rows = prep.rows;
-  const { order, groupStart, globalFixed, localFixed, effectiveResidual } = prep;
+  const { order, groupStart, localFixed, effectiveResidual } = prep;
+  const termSlot = prep.structure.termSlot;
   const first = groupStart[block];
   const end = groupStart[block + 1];
   const l = block < prep.blockCount ? prep.localOffset[block + 1] - prep.localOffset[block] : 0;
   const localBase = block < prep.blockCount ? prep.localOffset[block] : 0;
   ws.localCount = l;
-  const t = gatherTouched(prep, first, end, ws);
+  const t = loadTouched(prep, block, ws);
   const A = ws.normalLocal;
   const Nlt = ws.normalLocalTouched;
   const Ntt = ws.normalTouched;
@@ -44,9 +45,9 @@ export function accumulateBlock(
     ensureRowScratch(rows.globalStart[k + 1] - g0, rows.localStart[k + 1] - l0);
     let gn = 0;
     for (let p = g0; p < rows.globalStart[k + 1]; p++) {
-      const g = rows.globalIndex[p];
-      if (globalFixed[g]) continue;
-      rowPosition[gn] = ws.position[g];
+      const slot = termSlot[p];
+      if (slot < 0) continue;
+      rowPosition[gn] = slot;
       rowGlobalPartial[gn++] = rows.globalPartial[p];
     }
     let ln = 0;
@@ -94,20 +95,15 @@ function ensureRowScratch(globalTerms: number, localTerms: number): void {
   }
 }
 
-/** Lists the free globals the block's rows touch, in order of first appearance; returns their count. */
-function gatherTouched(prep: PreparedProblem, first: number, end: number, ws: BlockWorkspace): number {
-  const rows = prep.rows;
-  const stampValue = ++ws.currentStamp;
-  let t = 0;
-  for (let i = first; i < end; i++) {
-    const k = prep.order[i];
-    for (let p = rows.globalStart[k]; p < rows.globalStart[k + 1]; p++) {
-      const g = rows.globalIndex[p];
-      if (prep.globalFixed[g] || ws.stamp[g] === stampValue) continue;
-      ws.stamp[g] = stampValue;
-      ws.position[g] = t;
-      ws.touched[t++] = g;
-    }
+/** Copies the group's sorted touched globals (block-structure.ts) into `ws`; returns their count. */
+function loadTouched(prep: PreparedProblem, block: number, ws: BlockWorkspace): number {
+  const { touchedStart, touchedGlobal } = prep.structure;
+  const from = touchedStart[block];
+  const t = touchedStart[block + 1] - from;
+  for (let s = 0; s < t; s++) {
+    const g = touchedGlobal[from + s];
+    ws.touched[s] = g;
+    ws.position[g] = s;
   }
   ws.touchedCount = t;
   ws.reserve(t);

@@ -232,7 +232,7 @@ function rowResidualsAndLeverage(
       for (let q = l0; q < l1; q++) variance += a * rows.localPartial[q] * covariance[li * l + rows.localIndex[q]];
       for (let q = g0; q < g1; q++) {
         const gq = rows.globalIndex[q];
-        if (!prep.globalFixed[gq]) variance -= 2 * a * rows.globalPartial[q] * cross[li * t + ws.position[gq]];
+        if (!prep.globalFixed[gq]) variance -= 2 * a * rows.globalPartial[q] * cross[li * t + prep.structure.termSlot[q]];
       }
     }
     out.residual[k] = v;

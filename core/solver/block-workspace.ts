@@ -11,12 +11,10 @@ import type { DroppedDirection } from './small-inverse.ts';
 export class BlockWorkspace {
   localCount = 0;
   touchedCount = 0;
-  /** Global indices touched by the block, in order of first appearance. */
+  /** Free global indices touched by the block, ascending (block-structure.ts). */
   readonly touched: Int32Array;
-  /** position[g] = place of global g in `touched`, valid while stamp[g] === currentStamp. */
+  /** position[g] = place of global g in `touched`, valid for the globals of the block being processed. */
   readonly position: Int32Array;
-  readonly stamp: Int32Array;
-  currentStamp = 0;
   readonly normalLocal: Float64Array;
   readonly inverseLocal: Float64Array;
   readonly rhsLocal: Float64Array;
@@ -39,7 +37,6 @@ export class BlockWorkspace {
     this.maxLocals = l;
     this.touched = new Int32Array(globalCount);
     this.position = new Int32Array(globalCount);
-    this.stamp = new Int32Array(globalCount);
     this.normalLocal = new Float64Array(l * l);
     this.inverseLocal = new Float64Array(l * l);
     this.rhsLocal = new Float64Array(l);

@@ -1,7 +1,7 @@
 import type { PreparedProblem } from './prepared-problem.ts';
 import type { ParameterPrior } from './problem.ts';
 import { SINGULAR_RELATIVE_EIGENVALUE } from './small-inverse.ts';
-import { symmetricEigen } from './symmetric-eigen.ts';
+import { lowestEigenpairs } from './lowest-eigenpairs.ts';
 
 /**
  * Relative eigenvalue below which a direction is reported as weak: condition index
@@ -86,7 +86,7 @@ function resolverRows(
 /**
  * Eigen-analysis of the reduced global system (see DegeneracyReport). `reducedNormal` is the
  * n×n reduced matrix, `localConstraintRows` the constraints' effective rows on the globals (B).
- * Cost ~9·f³ for f free globals.
+ * Cost ~f³ for f free globals (all eigenvalues, eigenvectors of the weakest only: lowest-eigenpairs.ts).
  */
 export function degeneracyReport(
   prep: PreparedProblem, reducedNormal: Float64Array, localConstraintRows: Float64Array,
@@ -104,7 +104,7 @@ export function degeneracyReport(
       scaled[i * f + j] = denominator > 0 ? reducedNormal[free[i] * n + free[j]] / denominator : 0;
     }
   }
-  const { values, vectors } = symmetricEigen(scaled, f);
+  const { values, vectors } = lowestEigenpairs(scaled, f, Math.min(weakCount, f));
   const largest = f > 0 ? Math.max(values[f - 1], Number.MIN_VALUE) : 1;
   const resolvers = resolverRows(prep, free, scale.map((s) => (s > 0 ? 1 / s : 1)), localConstraintRows, priors, globalNames);
   const weakest: WeakDirection[] = [];

@@ -85,7 +85,7 @@ type Reporter = (phase: SolvePhase, fraction: number, iteration: number) => void
 function runPass(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, exact: boolean, iteration: number, report: Reporter): Pass {
   const reduced = reduceBlocks(prep, rows.weight, ws, true, (done, total) => report('reduce', done / total, iteration));
   report('solve', 0, iteration);
-  const globals = solveGlobals(prep, reduced);
+  const globals = solveGlobals(prep, reduced, exact);
   report('solve', 1, iteration);
   const back = backSubstitute(prep, rows.weight, ws, globals, exact, (done, total) => report('back-substitute', done / total, iteration));
   return { reduced, globals, back, exact };
@@ -118,9 +118,12 @@ function iterate(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, robu
     const converged = change <= robust.weightTolerance;
     if (converged || iteration === limit) {
       rows.factor.set(Float64Array.from(rows.weight, (w, k) => (rows.baseWeight[k] > 0 ? w / rows.baseWeight[k] : 1)));
+      // The pass solved the globals without covariance; the same reduced system now gives Q.
+      report('solve', 0, iteration);
+      const globals = solveGlobals(prep, pass.reduced, true);
       report('back-substitute', 0, iteration);
-      const back = backSubstitute(prep, rows.weight, ws, pass.globals, true, (done, total) => report('back-substitute', done / total, iteration));
-      pass = { ...pass, back, exact: true };
+      const back = backSubstitute(prep, rows.weight, ws, globals, true, (done, total) => report('back-substitute', done / total, iteration));
+      pass = { ...pass, globals, back, exact: true };
       reweigh(rows, back, robust, true);
       return { pass, iterations: iteration, converged };
     }

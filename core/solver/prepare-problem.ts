@@ -1,3 +1,4 @@
+import { blockStructure } from './block-structure.ts';
 import { checkRows, flatIndex, groupRowsByBlock } from './prepared-problem.ts';
 import type { PreparedConstraint, PreparedProblem } from './prepared-problem.ts';
 import type { SolverProblem } from './problem.ts';
@@ -45,8 +46,9 @@ export function prepareProblem(problem: SolverProblem): PreparedProblem {
   for (const term of localTerms) blockConstraintStart[term.block + 1]++;
   for (let b = 0; b < blockCount; b++) blockConstraintStart[b + 1] += blockConstraintStart[b];
   const { order, groupStart } = groupRowsByBlock(rows, blockCount);
+  const structure = blockStructure(rows, order, groupStart, globalCount, fixed.subarray(0, globalCount));
   return {
-    rows, globalCount, blockCount, localOffset, order, groupStart, effectiveResidual,
+    rows, globalCount, blockCount, localOffset, order, groupStart, structure, effectiveResidual,
     globalFixed: fixed.slice(0, globalCount),
     globalFixedValue: fixedValue.slice(0, globalCount),
     localFixed: fixed.slice(globalCount),

@@ -1,3 +1,4 @@
+import type { BlockStructure } from './block-structure.ts';
 import type { ObservationRows } from './observation-rows.ts';
 import type { ParameterRef } from './problem.ts';
 
@@ -23,6 +24,8 @@ export interface PreparedProblem {
   /** Row numbers grouped by block; group b is order[groupStart[b] … groupStart[b+1]), group blockCount holds block −1. */
   readonly order: Int32Array;
   readonly groupStart: Int32Array;
+  /** Sorted touched globals per group and each term's slot in them (block-structure.ts). */
+  readonly structure: BlockStructure;
   /** residual − Σ partial·(fixed value) over the row's fixed parameters. */
   readonly effectiveResidual: Float64Array;
   readonly globalFixed: Uint8Array;

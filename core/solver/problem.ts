@@ -98,7 +98,7 @@ export interface SolveOptions {
    * 'a-priori': the inverse normal matrix as it stands (weights taken as 1/σ²).
    */
   readonly covarianceScale?: 'a-posteriori' | 'a-priori';
-  /** Skip the eigen-analysis of the global system (it costs ~9·n³ flops for n globals). */
+  /** Skip the eigen-analysis of the global system (it costs ~n³ multiply-adds for n globals: 0.2–0.5 s at n = 600). */
   readonly degeneracyReport?: boolean;
   /** How many weakest directions to list (default 5). */
   readonly weakDirectionCount?: number;

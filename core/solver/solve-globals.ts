@@ -1,7 +1,7 @@
-import { choleskyInPlace, choleskyInverse } from './cholesky.ts';
+import { choleskyInPlace, choleskyInverse, choleskySolveInPlace } from './cholesky.ts';
 import type { PreparedProblem } from './prepared-problem.ts';
 import type { ReducedSystem } from './reduce-blocks.ts';
-import { symmetricGeneralisedInverse } from './small-inverse.ts';
+import { SINGULAR_RELATIVE_EIGENVALUE, symmetricGeneralisedInverse } from './small-inverse.ts';
 import type { DroppedDirection } from './small-inverse.ts';
 
 /**
@@ -13,6 +13,7 @@ import type { DroppedDirection } from './small-inverse.ts';
  */
 export interface GlobalSolution {
   readonly estimate: Float64Array;
+  /** Q (n×n); empty (length 0), like covarianceGain and gainCovariance, when solved without covariance. */
   readonly covariance: Float64Array;
   readonly multiplier: Float64Array;
   readonly constraintGain: Float64Array;
@@ -67,7 +68,7 @@ function transpose(a: Float64Array, r: number, c: number): Float64Array {
  * 4. M⁻¹ by Cholesky, falling back to an eigen-decomposition generalised inverse when M is
  *    singular to working precision; each such direction is returned, never hidden.
  */
-export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem): GlobalSolution {
+export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem, withCovariance = true): GlobalSolution {
   const n = reduced.n;
   const m = reduced.constraintCount;
   const { S, h } = withPriorsAndFixes(prep, reduced);
@@ -83,12 +84,23 @@ export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem): Glo
       for (let b = 0; b < n; b++) M[a * n + b] += ca * C[i * n + b];
     }
   }
-  const Minv = new Float64Array(n * n);
-  const minimumNormDirections = symmetricGeneralisedInverse(M, n, Minv);
-  const { estimate, Q } = k > 0 ? constrainedSolution(prep, Minv, C, d, h, n, k) : { estimate: multiply(Minv, h, n, n, 1), Q: Minv };
+  // Without covariance (intermediate robust passes) a regular M is only factored: n³/3 instead of
+  // the n³ of its inverse. The same pivot test as symmetricGeneralisedInverse's regular path
+  // decides, so both routes take the same branch and agree to rounding.
+  const factor = withCovariance ? null : regularFactor(M, n);
+  let Minv = new Float64Array(0);
+  let minimumNormDirections: readonly DroppedDirection[] = [];
+  if (factor === null) {
+    Minv = new Float64Array(n * n);
+    minimumNormDirections = symmetricGeneralisedInverse(M, n, Minv);
+  }
+  const applyInverse = (columns: Float64Array, count: number): Float64Array =>
+    (factor ? solveColumns(factor, n, columns, count) : multiply(Minv, columns, n, n, count));
+  const { estimate, Q } = constrainedSolution(prep, applyInverse, factor === null ? Minv : null, C, d, h, n, k);
   for (let p = 0; p < n; p++) {
     if (!prep.globalFixed[p]) continue;
     estimate[p] = 0;
+    if (Q.length === 0) continue;
     for (let j = 0; j < n; j++) {
       Q[p * n + j] = 0;
       Q[j * n + p] = 0;
@@ -96,12 +108,31 @@ export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem): Glo
   }
   const Bg = multiply(B, estimate, m, n, 1);
   const multiplier = multiply(Einv, Bg.map((x, i) => x - reduced.constraintRhs[i]), m, m, 1);
-  const covarianceGain = multiply(Q, F, n, n, m);
-  const gainCovariance = multiply(transpose(F, n, m), covarianceGain, m, n, m);
+  const covarianceGain = Q.length > 0 ? multiply(Q, F, n, n, m) : new Float64Array(0);
+  const gainCovariance = Q.length > 0 ? multiply(transpose(F, n, m), covarianceGain, m, n, m) : new Float64Array(0);
   return {
     estimate, covariance: Q, multiplier, constraintGain: F, covarianceGain, gainCovariance,
     constraintNormalInverse: Einv, minimumNormDirections, localConstraintRows: B, globalConstraintRows: C,
   };
+}
+
+/** Cholesky factor of M when symmetricGeneralisedInverse would take its regular path, else null. */
+function regularFactor(M: Float64Array, n: number): Float64Array | null {
+  for (let i = 0; i < n; i++) if (!(M[i * n + i] > 0)) return null;
+  const factor = M.slice();
+  return choleskyInPlace(factor, n, SINGULAR_RELATIVE_EIGENVALUE) ? factor : null;
+}
+
+/** M⁻¹·X for X n×count row-major, by `count` pairs of triangular solves with M's factor. */
+function solveColumns(factor: Float64Array, n: number, columns: Float64Array, count: number): Float64Array {
+  const out = new Float64Array(n * count);
+  const column = new Float64Array(n);
+  for (let c = 0; c < count; c++) {
+    for (let i = 0; i < n; i++) column[i] = columns[i * count + c];
+    choleskySolveInPlace(factor, n, column);
+    for (let i = 0; i < n; i++) out[i * count + c] = column[i];
+  }
+  return out;
 }
 
 /** S = R + global priors, h = b' + prior terms; fixed globals pinned to a zero correction. */
@@ -156,11 +187,17 @@ function unitConstraintRows(prep: PreparedProblem, S: Float64Array, n: number): 
   return { C, d };
 }
 
-/** g = M⁻¹h + M⁻¹Cᵀ·T⁻¹(d − CM⁻¹h), Q = M⁻¹ − M⁻¹CᵀT⁻¹CM⁻¹ with T = CM⁻¹Cᵀ. */
+/**
+ * g = M⁻¹h + M⁻¹Cᵀ·T⁻¹(d − CM⁻¹h), Q = M⁻¹ − M⁻¹CᵀT⁻¹CM⁻¹ with T = CM⁻¹Cᵀ (k = 0: g = M⁻¹h,
+ * Q = M⁻¹). `applyInverse` gives M⁻¹·X; Q is computed only when `Minv` is passed (else empty).
+ */
 function constrainedSolution(
-  prep: PreparedProblem, Minv: Float64Array, C: Float64Array, d: Float64Array, h: Float64Array, n: number, k: number,
+  prep: PreparedProblem, applyInverse: (columns: Float64Array, count: number) => Float64Array, Minv: Float64Array | null,
+  C: Float64Array, d: Float64Array, h: Float64Array, n: number, k: number,
 ): { estimate: Float64Array; Q: Float64Array } {
-  const P = multiply(Minv, transpose(C, k, n), n, n, k);
+  const unconstrained = applyInverse(h, 1);
+  if (k === 0) return { estimate: unconstrained, Q: Minv ?? new Float64Array(0) };
+  const P = applyInverse(transpose(C, k, n), k);
   const Tinv = invertSmall(multiply(C, P, k, n, k), k, () =>
     `constraints ${prep.globalConstraints.map((c) => `"${c.label}"`).join(', ')} on global parameters are linearly dependent; drop one of them`);
   // d − C·M⁻¹·h, with C·M⁻¹ = Pᵀ (M⁻¹ symmetric)
@@ -168,7 +205,8 @@ function constrainedSolution(
   for (let j = 0; j < n; j++) for (let i = 0; i < k; i++) misfit[i] -= P[j * k + i] * h[j];
   const PT = multiply(P, Tinv, n, k, k);
   const correction = multiply(PT, misfit, n, k, 1);
-  const estimate = multiply(Minv, h, n, n, 1).map((x, i) => x + correction[i]);
+  const estimate = unconstrained.map((x, i) => x + correction[i]);
+  if (Minv === null) return { estimate, Q: new Float64Array(0) };
   const PTPt = multiply(PT, transpose(P, n, k), n, k, n);
   return { estimate, Q: Minv.map((x, i) => x - PTPt[i]) };
 }

@@ -15,7 +15,14 @@ export interface SymmetricEigen {
   readonly vectors: Float64Array;
 }
 
-function tridiagonalize(a: Float64Array, n: number, qt: Float64Array, d: Float64Array, e: Float64Array): void {
+/**
+ * Householder reduction of the symmetric `a` (overwritten) to tridiagonal (d, e). With `qt` it
+ * accumulates Qᵀ (A = Q·T·Qᵀ); with `reflectors` it stores reflector k's unit vector v in row k
+ * (zero rows for skipped steps), so that Q·y = H₀·H₁·…·H_{n−3}·y can be applied later.
+ */
+export function tridiagonalize(
+  a: Float64Array, n: number, qt: Float64Array | null, d: Float64Array, e: Float64Array, reflectors: Float64Array | null = null,
+): void {
   const v = new Float64Array(n);
   const p = new Float64Array(n);
   for (let k = 0; k < n - 2; k++) {
@@ -39,6 +46,7 @@ function tridiagonalize(a: Float64Array, n: number, qt: Float64Array, d: Float64
       p[i] = sum;
       kappa += v[i] * sum;
     }
+    if (reflectors) for (let i = k + 1; i < n; i++) reflectors[k * n + i] = v[i];
     for (let i = k; i < n; i++) p[i] = 2 * p[i] - 2 * kappa * v[i];
     for (let i = k; i < n; i++) {
       const row = i * n;
@@ -47,6 +55,7 @@ function tridiagonalize(a: Float64Array, n: number, qt: Float64Array, d: Float64
       for (let j = k; j < n; j++) a[row + j] -= vi * p[j] + pi * v[j];
     }
     // Qᵀ ← H Qᵀ: rows k+1.. of Qᵀ change by −2 v (vᵀ Qᵀ).
+    if (!qt) continue;
     for (let j = 0; j < n; j++) p[j] = 0;
     for (let i = k + 1; i < n; i++) {
       const vi = v[i];
@@ -77,8 +86,8 @@ function rotateRows(z: Float64Array, n: number, i: number, s: number, c: number)
   }
 }
 
-/** Implicit QL on the tridiagonal (d, e), e[i] coupling i and i+1; rotations applied to rows of z. */
-function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Array): void {
+/** Implicit QL on the tridiagonal (d, e), e[i] coupling i and i+1; rotations applied to rows of z (none when null: eigenvalues only, O(n²)). */
+export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Array | null): void {
   for (let l = 0; l < n; l++) {
     let iterations = 0;
     let m: number;
@@ -115,7 +124,7 @@ function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Ar
         p = s * r;
         d[i + 1] = g + p;
         g = c * r - b;
-        rotateRows(z, n, i, s, c);
+        if (z) rotateRows(z, n, i, s, c);
       }
       if (underflow) continue;
       d[l] -= p;

@@ -43,7 +43,7 @@ interface Shape {
  * coordinates per transit. Partials are smooth invented functions of the star and the date
  * (they only need the sparsity and the degeneracies of the real problem).
  */
-function benchProblem(shape: Shape, seed: number): SolverProblem {
+export function benchProblem(shape: Shape, seed: number): SolverProblem {
   const random = generator(seed);
   const noise = (): number => Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
   const nightBlocks = shape.instruments * shape.nights;
@@ -202,4 +202,4 @@ export async function run(): Promise<void> {
     + ` ${GLOBALS + 357 * LOCALS} parameters ${(denseSeconds * 1000).toFixed(0)} ms: dense/block = ${(denseSeconds / blockSeconds).toFixed(1)}`);
 }
 
-if (import.meta.url === `file://${process.argv[1]}`) await run();
+if (process.argv[1]?.endsWith("solver.bench.ts")) await run();
