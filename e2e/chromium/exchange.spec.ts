@@ -78,7 +78,7 @@ for (const chunksBeforeKill of [1, 4, 6]) {
     try {
       const first = await launch();
       const page = first.pages()[0] ?? (await first.newPage());
-      await setUp(page, `${base}?test-hooks&chunk-delay-ms=600#/exchange`);
+      await setUp(page, `${base}?test-hooks&chunk-delay-ms=600&chunk-rows=500#/exchange`);
       await importFile(page, 'big.csv', transitLog(1500), 1500);
       await importValidRows(page);
       // 1500 nights + 1500 transits are staged in chunks of 500 rows.

@@ -32,13 +32,13 @@ export function startExchangeJob<R extends ExchangeRequest>(
 
 /**
  * Test hooks from the page address, only when it carries `?test-hooks` (the end-to-end tests):
- * `quota-on-transit-write=N` and `chunk-delay-ms=M`. Null in normal use.
+ * `quota-on-transit-write=N`, `chunk-delay-ms=M` and `chunk-rows=R`. Null in normal use.
  */
 export function testHooksFromLocation(search: string): ExchangeTestHooks | null {
   const query = new URLSearchParams(search);
   if (!query.has('test-hooks')) return null;
   const number = (name: string) => (query.has(name) ? Number(query.get(name)) : undefined);
-  return { quotaOnTransitWrite: number('quota-on-transit-write'), chunkDelayMs: number('chunk-delay-ms') };
+  return { quotaOnTransitWrite: number('quota-on-transit-write'), chunkDelayMs: number('chunk-delay-ms'), chunkRows: number('chunk-rows') };
 }
 
 /** Today's UTC date as an MJD (whole day), for the staleness lines. */

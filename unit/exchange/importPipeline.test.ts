@@ -1,13 +1,14 @@
 import { describe, expect, test } from 'vitest';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
-import { UNCONTROLLED } from '../../core/task/task-control.ts';
+import { Dexie } from 'dexie';
+import { UNCONTROLLED, type TaskControl } from '../../core/task/task-control.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { sweepInterruptedImports } from '../../renderer/store/importStaging.ts';
 import { planImport, type ImportFileRequest } from '../../renderer/exchange/importPlan.ts';
-import { beginImport, writeImport, STAGE_CHUNK_ROWS } from '../../renderer/exchange/stagedWriter.ts';
+import { beginImport, writeImport } from '../../renderer/exchange/stagedWriter.ts';
 import type { ImportFileKind } from '../../renderer/exchange/importReport.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
-import { NOW, SITE_JSON, STAR_LIST_CSV, transitLine, transitLog, watchingControl } from './exchangeFixtures.ts';
+import { NOW, SITE_JSON, STAR_LIST_CSV, transitLine, transitLog } from './exchangeFixtures.ts';
 
 function request(kind: ImportFileKind, bytes: Uint8Array, fileName = `file-${kind}`): ImportFileRequest {
   return { kind, bytes, fileName, defaultInstrumentId: null, columnMapping: {} };
@@ -20,17 +21,25 @@ async function importWhole(database: ArchiveDatabase, req: ImportFileRequest) {
   return plan.report;
 }
 
-async function withPrerequisites(): Promise<ArchiveDatabase> {
-  const database = new ArchiveDatabase(uniqueDatabaseName('exchange'));
+async function withPrerequisites(name = uniqueDatabaseName('exchange')): Promise<ArchiveDatabase> {
+  const database = new ArchiveDatabase(name);
   await importWhole(database, request('site-description', encodeUtf8(SITE_JSON), 'site.json'));
   await importWhole(database, request('star-list', encodeUtf8(STAR_LIST_CSV), 'stars.csv'));
   return database;
 }
 
-/** Rows of one import still staged, over every table an import writes. */
-async function stagedCount(database: ArchiveDatabase, importId: string): Promise<number> {
-  const counts = await Promise.all([database.nights, database.transits].map((t) => t.where('importId').equals(importId).and((r) => r.visibility === 'staged').count()));
-  return counts[0] + counts[1];
+/** Rows per chunk in these tests: small, so that a few hundred rows make several chunks. */
+const CHUNK = 100;
+
+/** A control that calls `onProgress(done)` at every progress report and cancels when told. */
+function progressControl(onProgress: (done: number) => void): TaskControl & { cancelled: boolean } {
+  const control = {
+    cancelled: false,
+    cancellation: { get isCancelled() { return control.cancelled; } },
+    reportProgress: (done: number) => onProgress(done),
+    yieldToHost: () => Promise.resolve(),
+  };
+  return control;
 }
 
 const visibleCount = (database: ArchiveDatabase) => database.transits.filter((t) => t.visibility === 'visible').count();
@@ -66,40 +75,48 @@ describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
     database.close();
   });
 
-  test('staged rows stay invisible until the commit, and a cancel leaves nothing', async () => {
-    const database = await withPrerequisites();
-    const lines = Array.from({ length: STAGE_CHUNK_ROWS * 2 + 10 }, (_, day) => transitLine('QX-1', day));
+  test('writeImport(db, id, writes, control) shows no row to another connection before the commit, and a cancel leaves nothing', async () => {
+    const name = uniqueDatabaseName('exchange');
+    const database = await withPrerequisites(name);
+    const lines = Array.from({ length: CHUNK * 2 + 10 }, (_, day) => transitLine('QX-1', day));
     const plan = await planImport(database, request('transit-log', transitLog(lines)), NOW);
     expect(plan.report.validRows).toBe(lines.length);
     const importId = await beginImport(database, 'big.csv', 'transit-log', NOW);
-    const seen: { staged: number; visible: number }[] = [];
-    const control = watchingControl(async (calls) => {
-      seen.push({ staged: await stagedCount(database, importId), visible: await visibleCount(database) });
-      if (calls === 2) control.cancelled = true;
+    // A second connection, like the main thread while the worker imports: it reads what is committed.
+    const reader = new ArchiveDatabase(name);
+    const progress: number[] = [];
+    const readsDuringWrite: Promise<number>[] = [];
+    const control = progressControl((done) => {
+      progress.push(done);
+      readsDuringWrite.push(reader.transits.count());
+      if (progress.length === 4) control.cancelled = true;
     });
-    await expect(writeImport(database, importId, plan.writes, control, () => NOW)).rejects.toThrow(/cancelled/);
-    expect(seen).toEqual([{ staged: STAGE_CHUNK_ROWS, visible: 0 }, { staged: STAGE_CHUNK_ROWS * 2, visible: 0 }]);
+    await expect(writeImport(database, importId, plan.writes, control, () => NOW, { chunkRows: CHUNK })).rejects.toThrow(/cancelled/);
+    // 2·CHUNK+10 nights then transits, CHUNK rows per report: the cancel lands before the 5th chunk.
+    expect(progress).toEqual([CHUNK, 2 * CHUNK, 2 * CHUNK + 10, 3 * CHUNK + 10]);
+    expect(await Promise.all(readsDuringWrite)).toEqual([0, 0, 0, 0]);
     expect(await database.transits.count()).toBe(0);
     expect(await database.nights.count()).toBe(0);
     expect((await database.imports.get(importId))?.status).toBe('abandoned');
+    reader.close();
     database.close();
   });
 
-  test('an import interrupted mid-write (the page died) is swept at the next start', async () => {
+  test('an import whose transaction is lost mid-write (the page died) leaves no row, and the sweep at next start closes its journal', async () => {
     const name = uniqueDatabaseName('exchange-crash');
-    const database = new ArchiveDatabase(name);
-    await importWhole(database, request('site-description', encodeUtf8(SITE_JSON), 'site.json'));
-    await importWhole(database, request('star-list', encodeUtf8(STAR_LIST_CSV), 'stars.csv'));
-    const lines = Array.from({ length: STAGE_CHUNK_ROWS + 5 }, (_, day) => transitLine('QX-2', day));
+    const database = await withPrerequisites(name);
+    const lines = Array.from({ length: CHUNK + 5 }, (_, day) => transitLine('QX-2', day));
     const plan = await planImport(database, request('transit-log', transitLog(lines)), NOW);
     const importId = await beginImport(database, 'crash.csv', 'transit-log', NOW);
-    // The host never comes back after the first chunk: as if the window closed there.
-    void writeImport(database, importId, plan.writes, watchingControl(() => new Promise<void>(() => {})), () => NOW);
-    await new Promise((resolve) => setTimeout(resolve, 50));
-    expect(await stagedCount(database, importId)).toBe(STAGE_CHUNK_ROWS);
+    // What a dying page does to an unfinished transaction: IndexedDB discards it. No catch block of
+    // ours runs then, so the journal entry is put back to what a crash leaves: still staging.
+    const control = progressControl(() => Dexie.currentTransaction?.abort());
+    await expect(writeImport(database, importId, plan.writes, control, () => NOW, { chunkRows: CHUNK })).rejects.toThrow();
+    await database.imports.update(importId, { status: 'staging', finishedUtc: null });
     database.close();
     const reopened = new ArchiveDatabase(name);
     expect(await sweepInterruptedImports(reopened, NOW)).toBe(1);
+    expect((await reopened.imports.get(importId))?.status).toBe('abandoned');
     expect(await reopened.transits.count()).toBe(0);
     expect(await reopened.nights.count()).toBe(0);
     expect(await reopened.stars.count()).toBe(2);
@@ -125,7 +142,7 @@ describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
     const database = await withPrerequisites();
     await importWhole(database, request('transit-log', transitLog([transitLine('QX-1', 0)])));
     const before = await database.transits.toArray();
-    const lines = Array.from({ length: STAGE_CHUNK_ROWS + 20 }, (_, day) => transitLine('QX-2', day));
+    const lines = Array.from({ length: CHUNK + 20 }, (_, day) => transitLine('QX-2', day));
     const plan = await planImport(database, request('transit-log', transitLog(lines)), NOW);
     const original = database.transits.bulkPut.bind(database.transits);
     let calls = 0;
@@ -135,7 +152,7 @@ describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
       return original(...args);
     }) as typeof original;
     const importId = await beginImport(database, 'quota.csv', 'transit-log', NOW);
-    await expect(writeImport(database, importId, plan.writes, UNCONTROLLED, () => NOW)).rejects.toMatchObject({ name: 'QuotaExceededError' });
+    await expect(writeImport(database, importId, plan.writes, UNCONTROLLED, () => NOW, { chunkRows: CHUNK })).rejects.toMatchObject({ name: 'QuotaExceededError' });
     database.transits.bulkPut = original;
     expect(await database.transits.toArray()).toEqual(before);
     expect((await database.imports.get(importId))?.status).toBe('abandoned');

@@ -7,15 +7,19 @@ import { countArchiveRows, restoreBundle, verifyBundle, type RestoreMode } from 
 import { importEarthOrientation, importLeapSecondsList } from '../../exchange/iersTables.ts';
 import { planImport, type ImportFileRequest } from '../../exchange/importPlan.ts';
 import type { ImportReport } from '../../exchange/importReport.ts';
-import { beginImport, writeImport } from '../../exchange/stagedWriter.ts';
+import { beginImport, writeImport, type WriteImportOptions } from '../../exchange/stagedWriter.ts';
 import { describeStorageError } from '../../exchange/describeStorageError.ts';
+import { tableCsvBytes } from '../../exchange/tableExports.ts';
+import type { CsvTableName } from '../../../core/exchange-formats/archive-table-csv.ts';
 
 /** Hooks for the end-to-end tests only; the view sends them only when the page has `?test-hooks`. */
 export interface ExchangeTestHooks {
   /** Throw a QuotaExceededError DOMException from the n-th transits.bulkPut (1-based). */
   readonly quotaOnTransitWrite?: number;
-  /** Wait this long at every chunk boundary, so a test can interrupt the import mid-write. */
+  /** Hold the import's transaction open this long at every chunk boundary, so a test can interrupt it mid-write. */
   readonly chunkDelayMs?: number;
+  /** Rows per chunk (and per progress report) instead of WRITE_CHUNK_ROWS. */
+  readonly chunkRows?: number;
 }
 
 export type ExchangeRequest =
@@ -24,7 +28,8 @@ export type ExchangeRequest =
   | { readonly kind: 'bundle-export'; readonly databaseName: string; readonly producer: string }
   | { readonly kind: 'bundle-verify'; readonly databaseName: string; readonly bytes: Uint8Array }
   | { readonly kind: 'bundle-restore'; readonly databaseName: string; readonly bytes: Uint8Array; readonly mode: RestoreMode }
-  | { readonly kind: 'iers-import'; readonly databaseName: string; readonly fileName: string; readonly bytes: Uint8Array };
+  | { readonly kind: 'iers-import'; readonly databaseName: string; readonly fileName: string; readonly bytes: Uint8Array }
+  | { readonly kind: 'table-export'; readonly databaseName: string; readonly table: CsvTableName };
 
 export type ExchangeResult =
   | { readonly kind: 'exchange-validate'; readonly report: ImportReport }
@@ -36,16 +41,17 @@ export type ExchangeResult =
       readonly tables: readonly { readonly name: string; readonly rows: number }[]; readonly archiveRows: number;
     }
   | { readonly kind: 'bundle-restore'; readonly rowCounts: Readonly<Record<string, number>> }
-  | { readonly kind: 'iers-import'; readonly what: 'leap-seconds' | 'earth-orientation'; readonly summary: string };
+  | { readonly kind: 'iers-import'; readonly what: 'leap-seconds' | 'earth-orientation'; readonly summary: string }
+  | { readonly kind: 'table-export'; readonly table: CsvTableName; readonly bytes: Uint8Array; readonly rows: number };
 
-export const EXCHANGE_KINDS: readonly ExchangeRequest['kind'][] = ['exchange-validate', 'exchange-import', 'bundle-export', 'bundle-verify', 'bundle-restore', 'iers-import'];
+export const EXCHANGE_KINDS: readonly ExchangeRequest['kind'][] = ['exchange-validate', 'exchange-import', 'bundle-export', 'bundle-verify', 'bundle-restore', 'iers-import', 'table-export'];
 
 export function isExchangeKind(kind: string): kind is ExchangeRequest['kind'] {
   return (EXCHANGE_KINDS as readonly string[]).includes(kind);
 }
 
-function installTestHooks(database: ArchiveDatabase, hooks: ExchangeTestHooks | null, control: TaskControl): TaskControl {
-  if (hooks === null) return control;
+function installTestHooks(database: ArchiveDatabase, hooks: ExchangeTestHooks | null): WriteImportOptions {
+  if (hooks === null) return {};
   if (hooks.quotaOnTransitWrite !== undefined) {
     const original = database.transits.bulkPut.bind(database.transits);
     let calls = 0;
@@ -55,8 +61,7 @@ function installTestHooks(database: ArchiveDatabase, hooks: ExchangeTestHooks | 
       return original(...args);
     }) as typeof original;
   }
-  const delay = hooks.chunkDelayMs ?? 0;
-  return delay <= 0 ? control : { ...control, yieldToHost: () => new Promise<void>((resolve) => setTimeout(resolve, delay)) };
+  return { chunkRows: hooks.chunkRows, chunkPauseMs: hooks.chunkDelayMs };
 }
 
 async function runIersImport(database: ArchiveDatabase, fileName: string, bytes: Uint8Array): Promise<ExchangeResult> {
@@ -75,11 +80,11 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
     case 'exchange-validate':
       return { kind: request.kind, report: (await planImport(database, request.file, nowUtcIso())).report };
     case 'exchange-import': {
-      const hooked = installTestHooks(database, request.testHooks, control);
+      const writeOptions = installTestHooks(database, request.testHooks);
       const plan = await planImport(database, request.file, nowUtcIso());
       if (plan.report.missingPrerequisites.length > 0) throw new Error(plan.report.missingPrerequisites.join(' '));
       const importId = await beginImport(database, request.file.fileName, request.file.kind, nowUtcIso());
-      const rowCounts = await writeImport(database, importId, plan.writes, hooked, nowUtcIso);
+      const rowCounts = await writeImport(database, importId, plan.writes, control, nowUtcIso, writeOptions);
       return { kind: request.kind, report: plan.report, rowCounts };
     }
     case 'bundle-export': {
@@ -97,12 +102,15 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
       return { kind: request.kind, rowCounts: await restoreBundle(database, await verifyBundle(database, request.bytes, control), request.mode) };
     case 'iers-import':
       return runIersImport(database, request.fileName, request.bytes);
+    case 'table-export':
+      return { kind: request.kind, table: request.table, ...(await tableCsvBytes(database, request.table, control)) };
   }
 }
 
 const ACTIONS: Readonly<Record<ExchangeRequest['kind'], string>> = {
   'exchange-validate': 'Checking the file', 'exchange-import': 'The import', 'bundle-export': 'The export',
   'bundle-verify': 'Checking the bundle', 'bundle-restore': 'The restore', 'iers-import': 'The IERS import',
+  'table-export': 'The table export',
 };
 
 /**
