@@ -1,4 +1,4 @@
-import type { JointModel, TermSetting } from '../../core/joint/joint-model.ts';
+import { TERM_SPANS, type JointModel, type SegmentableTerm, type TermSetting, type TermSpan } from '../../core/joint/joint-model.ts';
 
 /** A JointModel the form edits in place. */
 export type EditableModel = { -readonly [K in keyof JointModel]: JointModel[K] };
@@ -7,7 +7,7 @@ type TermKey = { [K in keyof JointModel]: JointModel[K] extends TermSetting ? K 
 type NumberKey = { [K in keyof JointModel]: JointModel[K] extends number ? K : never }[keyof JointModel];
 
 /** The model's terms as the form lists them, in the words of the trade, grouped by what they belong to. */
-export const TERM_GROUPS: readonly { readonly title: string; readonly terms: readonly { readonly key: TermKey; readonly label: string }[] }[] = [
+export const TERM_GROUPS: readonly { readonly title: string; readonly terms: readonly { readonly key: TermKey; readonly label: string; readonly spans?: SegmentableTerm }[] }[] = [
   { title: 'Per star', terms: [
     { key: 'starPosition', label: 'Position correction at the catalogue epoch' },
     { key: 'properMotion', label: 'Proper motion' },
@@ -19,16 +19,24 @@ export const TERM_GROUPS: readonly { readonly title: string; readonly terms: rea
     { key: 'refractionScale', label: 'Refraction scale' },
     { key: 'temperature', label: 'Temperature coefficients' },
     { key: 'seasonal', label: 'Annual instrument term' },
+    { key: 'latitudeVariation', label: 'Latitude variation (433-day)' },
+    { key: 'diurnalAberrationScale', label: 'Diurnal-aberration scale' },
   ] },
-  { title: 'Per night', terms: [
+  { title: 'Instrument, per night or per segment', terms: [
     { key: 'clockOffset', label: 'Clock offset' },
-    { key: 'clockRate', label: 'Clock rate' },
-    { key: 'azimuth', label: 'Azimuth a' },
-    { key: 'level', label: 'Level b' },
-    { key: 'collimation', label: 'Collimation c' },
-    { key: 'zeroPoint', label: 'Zenith-distance zero point' },
+    { key: 'clockRate', label: 'Clock rate', spans: 'clockRate' },
+    { key: 'azimuth', label: 'Azimuth a', spans: 'azimuth' },
+    { key: 'level', label: 'Level b', spans: 'level' },
+    { key: 'collimation', label: 'Collimation c', spans: 'collimation' },
+    { key: 'zeroPoint', label: 'Zenith-distance zero point', spans: 'zeroPoint' },
   ] },
 ];
+
+/** How a free instrument term varies, in words (segments run between the instrument's events). */
+export const SPAN_LABELS: Readonly<Record<TermSpan, string>> = {
+  'per-night': 'per night', 'per-segment': 'per segment', 'per-segment-drift': 'per segment + drift',
+};
+export const SPANS: readonly TermSpan[] = TERM_SPANS;
 
 /** Stated precisions and settings, with the unit and the range parseJointModel accepts. */
 export const NUMBER_FIELDS: readonly { readonly key: NumberKey; readonly label: string; readonly min: number; readonly max: number; readonly step: number }[] = [
@@ -59,13 +67,18 @@ function catalogueProblems(model: JointModel): string[] {
 
 /** The terms that differ between two models, as "Parallax: free → absent" lines. */
 export function modelDifferences(a: JointModel, b: JointModel): string[] {
-  const labels = new Map<string, string>([['catalogueSigma', 'Catalogue precision'], ['parallaxPrior', 'Catalogue parallax as a prior'], ...TERM_GROUPS.flatMap((g) => g.terms.map((t) => [t.key, t.label] as const)), ...NUMBER_FIELDS.map((f) => [f.key, f.label] as const)]);
+  const labels = new Map<string, string>([['catalogueSigma', 'Catalogue precision'], ['parallaxPrior', 'Catalogue parallax as a prior'],
+    ['varianceComponents', 'Weights from the residuals (variance components)'], ['latitudeVariationPeriodsDays', 'Latitude-variation periods (days)'], ['termSpan', 'Segments'], ...TERM_GROUPS.flatMap((g) => g.terms.map((t) => [t.key, t.label] as const)), ...NUMBER_FIELDS.map((f) => [f.key, f.label] as const)]);
   return [...labels].filter(([key]) => JSON.stringify(a[key as keyof JointModel]) !== JSON.stringify(b[key as keyof JointModel]))
     .map(([key, label]) => `${label}: ${describeValue(a[key as keyof JointModel])} → ${describeValue(b[key as keyof JointModel])}`);
 }
 
 function describeValue(value: JointModel[keyof JointModel]): string {
-  if (typeof value !== 'object' || value === null) return JSON.stringify(value);
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) return JSON.stringify(value);
+  if (!('default' in value)) {
+    const spans = Object.entries(value as JointModel['termSpan']).filter(([, span]) => span !== 'per-night');
+    return spans.length === 0 ? 'every term per night' : spans.map(([term, span]) => `${term} ${SPAN_LABELS[span]}`).join(', ');
+  }
   const sigma = (value as JointModel['catalogueSigma']).default;
   const perStar = Object.keys((value as JointModel['catalogueSigma']).stars).length;
   const base = sigma === null ? 'none' : `${sigma.positionMas} mas and ${sigma.pmMasYr} mas/yr`;

@@ -20,6 +20,7 @@ export function solveResultJson(result: ArchiveSolveResult, catalogue: SolveInpu
     stars: result.stars, global: result.global, unitWeightError: result.unitWeightError, chiSquare: result.chiSquare,
     degreesOfFreedom: result.degreesOfFreedom, degeneracies: result.degeneracies, notes: result.notes,
     nights: result.nights.map((n) => ({ id: n.id, instrumentId: n.instrumentId, nightly: n.nightly })),
+    segments: result.segments, latitudeVariation: result.latitudeVariation, varianceComponents: result.varianceComponents,
     correlation: result.correlation, instrumentSeries: result.instrumentSeries, signatures: result.signatures,
     starNights: Object.fromEntries([...nightsOfStar].map(([id, set]) => [id, set.size])),
   };

@@ -16,7 +16,8 @@ const USAGE = `Usage: meridian-ledger solve DIR [--model FILE] [--json [--residu
 Solves every star, global and per-night term of the archive folder DIR (as 'meridian-ledger
 simulate' writes it) at once: each night is first reduced (clock from its comparisons, b from its
 level readings), then parallaxes, proper motions, position corrections, Δκ, flexure and the
-per-night clock, a, b, c and zero points are fitted together (core/joint/SOLVE.md).
+per-night clock, a, b, c and zero points (or per segment between instrument events) are fitted
+together, with temperature coefficients when the archive records temperatures (core/joint/SOLVE.md).
 
   --model FILE   model file (JSON): which terms are free, fixed or absent, stated precisions,
                  catalogue σ (SOLVE.md lists every key); default: the practitioner defaults
@@ -64,6 +65,7 @@ function toJson(r: ArchiveSolveResult, stars: SolveInputs['stars'], residuals: b
     stars: r.stars, global: r.global, unitWeightError: r.unitWeightError, chiSquare: r.chiSquare, degreesOfFreedom: r.degreesOfFreedom,
     degeneracies: r.degeneracies, notes: r.notes,
     nights: r.nights.map((n) => ({ id: n.id, instrumentId: n.instrumentId, nightly: n.nightly })),
+    segments: r.segments, latitudeVariation: r.latitudeVariation, varianceComponents: r.varianceComponents,
     correlation: r.correlation, instrumentSeries: r.instrumentSeries, signatures: r.signatures,
     ...(residuals ? { residuals: observationResiduals(r.solution, r.layout, stars, r.nights, r.observations) } : {}),
   };
@@ -80,9 +82,34 @@ function textReport(r: ArchiveSolveResult): string {
     lines.push(`${s.id.padEnd(12)}${String(s.observations).padStart(4)}  ${fixed(s.parallaxMas, 2).padStart(8)} ± ${fixed(s.parallaxSigmaMas, 2).padEnd(6)}  ${fixed(s.pmRaMasYr, 2).padStart(8)} ± ${fixed(s.pmRaSigmaMasYr, 2).padEnd(6)}  ${fixed(s.pmDecMasYr, 2).padStart(8)} ± ${fixed(s.pmDecSigmaMasYr, 2)}`);
   }
   lines.push('', `Δκ ${fixed(r.global.deltaKappaArcsec, 4)} ± ${fixed(r.global.deltaKappaSigmaArcsec, 4)}″   flexure ${fixed(r.global.flexureArcsec, 3)} ± ${fixed(r.global.flexureSigmaArcsec, 3)}″`);
+  lines.push(...termLines(r));
   if (r.degeneracies.length > 0) lines.push('', 'What the data cannot separate well:', ...r.degeneracies.map((d) => `  - ${d}`));
   if (r.notes.length > 0) lines.push('', 'Notes:', ...r.notes.map((n) => `  - ${n}`));
   return `${lines.join('\n')}\n`;
+}
+
+/** The optional terms' lines of the readable report: temperature, diurnal-aberration scale, latitude variation, segments, variance components. */
+function termLines(r: ArchiveSolveResult): string[] {
+  const g = r.global, out: string[] = [];
+  if (g.temperatureRaArcsecPerC !== null) out.push(`temperature ${fixed(g.temperatureRaArcsecPerC, 4)} ± ${fixed(g.temperatureRaSigmaArcsecPerC, 4)}″/°C (α cos δ), ${fixed(g.temperatureDecArcsecPerC, 4)} ± ${fixed(g.temperatureDecSigmaArcsecPerC, 4)}″/°C (δ)`);
+  if (g.diurnalAberrationScale !== null) out.push(`diurnal-aberration scale correction ${fixed(g.diurnalAberrationScale, 3)} ± ${fixed(g.diurnalAberrationScaleSigma, 3)}`);
+  for (const l of r.latitudeVariation) out.push(`latitude variation ${l.periodDays} d: cos ${l.cosArcsec.toFixed(3)} ± ${l.cosSigmaArcsec.toFixed(3)}″, sin ${l.sinArcsec.toFixed(3)} ± ${l.sinSigmaArcsec.toFixed(3)}″ (amplitude ${l.amplitudeArcsec.toFixed(3)} ± ${l.amplitudeSigmaArcsec.toFixed(3)}″)`);
+  if (r.segments.length > 0) {
+    out.push('', 'Instrument terms per segment between events (s/day for the clock rate, ″ otherwise; drift per year):');
+    for (const s of r.segments) {
+      const span = `${s.fromUtcMjd === null ? 'start' : `MJD ${s.fromUtcMjd.toFixed(2)}`} – ${s.toUtcMjd === null ? 'end' : `MJD ${s.toUtcMjd.toFixed(2)}`}`;
+      out.push(`  ${s.instrumentId} ${s.term} ${s.number} (${span}, ${s.nights} nights): ${s.value.toFixed(4)} ± ${s.valueSigma.toFixed(4)}${s.driftPerYear === null ? '' : `, drift ${s.driftPerYear.toFixed(4)} ± ${s.driftSigmaPerYear!.toFixed(4)}/yr`}`);
+    }
+  }
+  const vc = r.varianceComponents;
+  if (vc !== null) {
+    const far = vc.stars.filter((s) => Math.max(s.raFactor, s.zenithFactor, 1 / s.raFactor, 1 / s.zenithFactor) > 1.5);
+    out.push('', `Variance components (${vc.iterations} passes${vc.converged ? '' : ', not converged'}): factor on the stated σ per star (α, z)${far.length === 0 ? ': none beyond 1.5×' : ':'}`,
+      ...far.map((s) => `  ${s.id}: ${s.raFactor.toFixed(2)}, ${s.zenithFactor.toFixed(2)}`));
+    const nights = vc.nights.map((n) => n.factor).sort((a, b) => a - b);
+    if (nights.length > 0) out.push(`  nights: factor ${nights[0].toFixed(2)}–${nights[nights.length - 1].toFixed(2)} (median ${nights[Math.floor(nights.length / 2)].toFixed(2)})`);
+  }
+  return out;
 }
 
 function comparisonReport(c: TermComparison): string {
