@@ -6,8 +6,15 @@
  * `element.style.cssText`), which the policy does not govern; scripts in the report never run.
  */
 export function printHtml(html: string): void {
-  const parsed = new DOMParser().parseFromString(html, 'text/html');
-  const cssText = Array.from(parsed.querySelectorAll('style'), (style) => style.textContent ?? '').join('\n');
+  // The <style> blocks are cut out of the text before parsing: a parsed document inherits this
+  // page's policy, and Chromium reports every <style> it parses as a violation.
+  const styles: string[] = [];
+  const withoutStyles = html.replace(/<style\b[^>]*>([\s\S]*?)<\/style\s*>/gi, (_, css: string) => {
+    styles.push(css);
+    return '';
+  });
+  const parsed = new DOMParser().parseFromString(withoutStyles, 'text/html');
+  const cssText = [...styles, ...Array.from(parsed.querySelectorAll('style'), (style) => style.textContent ?? '')].join('\n');
   parsed.querySelectorAll('style, script').forEach((element) => element.remove());
   // Remember each element's inline style by its position in document order, which importNode keeps.
   const inlineStyles = new Map<number, string>();
