@@ -1,11 +1,12 @@
 import { equinoxComplementaryTerms } from '../earth/equation-of-equinoxes-06.ts';
-import { nutation00b, nutation06a, type Nutation } from '../earth/nutation-series.ts';
+import { nutation00b, nutation06a } from '../earth/nutation-series.ts';
 import { applyTranspose, multiply, rotationZ } from '../math/mat3.ts';
 import type { Vec3 } from '../math/vec3.ts';
 import { SECONDS_PER_DAY, TAU } from '../units.ts';
 import { ASTRONOMICAL_UNIT_M, EARTH_ROTATION_RATE_RAD_PER_S, GM_SUN_AU3_PER_DAY2 } from './constants.ts';
 import { earthState, earthStateFast } from './earth-state.ts';
 import { iauEarthOrientation } from './iau-earth-orientation.ts';
+import type { EarthOrientation } from './earth-orientation.ts';
 import type { AstrometricInstant, TwoPartJulianDate } from './instant.ts';
 import { moonGeocentricAu } from './moon-low-precision.ts';
 import { refractionConstants } from './refraction-constants.ts';
@@ -82,31 +83,60 @@ export function createNightContext(options: NightContextOptions): NightContext {
   const exact = options.mode === 'exact';
   if (exact) fillEarthFromSamples(c, [samples[0].tt, samples[2].tt, samples[4].tt], h);
   else fillEarth(c, centre, days);
-  const fullNutation = nutation06a(centre);
-  const shortNutation = exact ? [] : samples.map((instant) => nutation00b(instant.tt));
-  const complementary = equinoxComplementaryTerms(centre);
-  const orientations = samples.map((instant, k) => exact
-    ? iauEarthOrientation(instant, k === 2 ? fullNutation : nutation06a(instant.tt))
-    : iauEarthOrientation(instant, nutationAt(fullNutation, shortNutation[k], shortNutation[2]), complementary));
-  const npb = orientations.map((o) => o.npb);
-  const local = orientations.map((o) => multiply(rotationZ(options.site.longitudeRad), o.polarMotion));
-  for (let e = 0; e < 9; e++) {
-    quartic(c, NC_NPB + NC_ORDER * e, npb.map((m) => m[e]));
-    quartic(c, NC_LOCAL + NC_ORDER * e, local.map((m) => m[e]));
-  }
-  // GAST unwrapped around the nominal rotation, so the quartic sees a smooth function.
-  const rate = EARTH_ROTATION_RATE_RAD_PER_S * SECONDS_PER_DAY;
-  const wrap = (a: number) => a - TAU * Math.round(a / TAU);
-  const centreAngle = orientations[2].gastRad;
-  quartic(c, NC_ANGLE, orientations.map((o, k) => centreAngle + rate * offsets[k] + wrap(o.gastRad - centreAngle - rate * offsets[k])));
+  const orientations = exact ? exactOrientations(samples) : fastOrientations(samples, centre);
+  fillRotations(c, orientations, options.site.longitudeRad, offsets);
   c[NC_INVERSE_HALF_WIDTH] = 1 / h;
   fillSite(c, options.site, orientations[1].polarMotion);
   const refraction = options.weather === null ? null : refractionConstants(options.weather);
   c[NC_REFRACTION] = refraction?.aRad ?? 0;
   c[NC_REFRACTION + 1] = refraction?.bRad ?? 0;
   c[NC_REFRACTION + 2] = refraction === null ? 0 : 1;
-  const warnings = [...(refraction?.warnings ?? []), ...samples.flatMap((s) => (s as { warnings?: readonly string[] }).warnings ?? [])];
-  return { centreDaysSinceJ2000: days, halfWidthDays: h, coefficients: c, warnings: [...new Set(warnings)] };
+  const warnings = new Set<string>(refraction?.warnings ?? []);
+  for (const sample of samples) for (const warning of (sample as { warnings?: readonly string[] }).warnings ?? []) warnings.add(warning);
+  return { centreDaysSinceJ2000: days, halfWidthDays: h, coefficients: c, warnings: [...warnings] };
+}
+
+/** 'exact' mode: full nutation at every sample. */
+function exactOrientations(samples: readonly AstrometricInstant[]): EarthOrientation[] {
+  const orientations: EarthOrientation[] = [];
+  for (const instant of samples) orientations.push(iauEarthOrientation(instant, nutation06a(instant.tt)));
+  return orientations;
+}
+
+/** 'fast' mode: full nutation at the centre, its change across the night from IAU 2000B. */
+function fastOrientations(samples: readonly AstrometricInstant[], centre: TwoPartJulianDate): EarthOrientation[] {
+  const full = nutation06a(centre);
+  const complementary = equinoxComplementaryTerms(centre);
+  const centreShort = nutation00b(samples[2].tt);
+  const orientations: EarthOrientation[] = [];
+  for (let k = 0; k < samples.length; k++) {
+    const short = k === 2 ? centreShort : nutation00b(samples[k].tt);
+    const nutation = { dpsiRad: full.dpsiRad + short.dpsiRad - centreShort.dpsiRad, depsRad: full.depsRad + short.depsRad - centreShort.depsRad };
+    orientations.push(iauEarthOrientation(samples[k], nutation, complementary));
+  }
+  return orientations;
+}
+
+/** Quartics of the NPB matrix, of R3(λ)·W and of GAST through the five samples. */
+function fillRotations(c: Float64Array, orientations: readonly EarthOrientation[], longitudeRad: number, offsets: readonly number[]): void {
+  const longitude = rotationZ(longitudeRad);
+  const local = orientations.map((o) => multiply(longitude, o.polarMotion));
+  const values = [0, 0, 0, 0, 0];
+  for (let e = 0; e < 9; e++) {
+    for (let k = 0; k < 5; k++) values[k] = orientations[k].npb[e];
+    quartic(c, NC_NPB + NC_ORDER * e, values);
+    for (let k = 0; k < 5; k++) values[k] = local[k][e];
+    quartic(c, NC_LOCAL + NC_ORDER * e, values);
+  }
+  // GAST unwrapped around the nominal rotation, so the quartic sees a smooth function.
+  const rate = EARTH_ROTATION_RATE_RAD_PER_S * SECONDS_PER_DAY;
+  const centreAngle = orientations[2].gastRad;
+  for (let k = 0; k < 5; k++) {
+    const nominal = centreAngle + rate * offsets[k];
+    const step = orientations[k].gastRad - nominal;
+    values[k] = nominal + step - TAU * Math.round(step / TAU);
+  }
+  quartic(c, NC_ANGLE, values);
 }
 
 /**
@@ -119,19 +149,17 @@ function instantsAt(
   centre: TwoPartJulianDate,
   offsets: readonly number[],
 ): AstrometricInstant[] {
-  const at = (offset: number) => instantFromTt({ jd1: centre.jd1, jd2: centre.jd2 + offset });
-  const first = at(offsets[0]), middle = at(offsets[2]), last = at(offsets[4]);
-  const between = (p: AstrometricInstant, q: AstrometricInstant, offset: number): AstrometricInstant => {
-    const tt = { jd1: centre.jd1, jd2: centre.jd2 + offset };
-    const ut1MinusTt = (p.ut1.jd1 - p.tt.jd1 + (p.ut1.jd2 - p.tt.jd2) + (q.ut1.jd1 - q.tt.jd1 + (q.ut1.jd2 - q.tt.jd2))) / 2;
-    return { tt, ut1: { jd1: tt.jd1, jd2: tt.jd2 + ut1MinusTt }, xpRad: (p.xpRad + q.xpRad) / 2, ypRad: (p.ypRad + q.ypRad) / 2 };
-  };
-  return [first, between(first, middle, offsets[1]), middle, between(middle, last, offsets[3]), last];
+  const first = instantFromTt({ jd1: centre.jd1, jd2: centre.jd2 + offsets[0] });
+  const middle = instantFromTt({ jd1: centre.jd1, jd2: centre.jd2 + offsets[2] });
+  const last = instantFromTt({ jd1: centre.jd1, jd2: centre.jd2 + offsets[4] });
+  return [first, between(first, middle, centre, offsets[1]), middle, between(middle, last, centre, offsets[3]), last];
 }
 
-/** Full nutation at the centre plus the 2000B change from the centre to this sample. */
-function nutationAt(full: Nutation, sample: Nutation, centre: Nutation): Nutation {
-  return { dpsiRad: full.dpsiRad + sample.dpsiRad - centre.dpsiRad, depsRad: full.depsRad + sample.depsRad - centre.depsRad };
+/** The instant at `offset` from `centre` with UT1 − TT and the pole the means of `p` and `q`. */
+function between(p: AstrometricInstant, q: AstrometricInstant, centre: TwoPartJulianDate, offset: number): AstrometricInstant {
+  const tt = { jd1: centre.jd1, jd2: centre.jd2 + offset };
+  const ut1MinusTt = (p.ut1.jd1 - p.tt.jd1 + (p.ut1.jd2 - p.tt.jd2) + (q.ut1.jd1 - q.tt.jd1 + (q.ut1.jd2 - q.tt.jd2))) / 2;
+  return { tt, ut1: { jd1: tt.jd1, jd2: tt.jd2 + ut1MinusTt }, xpRad: (p.xpRad + q.xpRad) / 2, ypRad: (p.ypRad + q.ypRad) / 2 };
 }
 
 /**
@@ -154,27 +182,36 @@ function quartic(out: Float64Array, offset: number, y: readonly number[]): void 
 
 /**
  * Earth's state at the centre, its acceleration (Sun: −GM r/r³; Moon: GM_m r_m/r_m³) and jerk
- * (Sun: time derivative of the former with Earth's velocity; Moon: numerical, over ±0.05 day).
+ * (Sun: time derivative of the former with Earth's velocity; Moon: forward difference over 0.05 day).
  */
 function fillEarth(c: Float64Array, centre: TwoPartJulianDate, days: number): void {
   const earth = earthStateFast(centre);
   const r = earth.heliocentricPositionAu, v = earth.barycentricVelocityAuPerDay;
-  const moonPull = (d: number): Vec3 => {
-    const m = moonGeocentricAu(d);
-    const k = GM_MOON_AU3_PER_DAY2 / Math.hypot(...m) ** 3;
-    return [m[0] * k, m[1] * k, m[2] * k];
-  };
-  const distance = Math.hypot(...r);
+  const moon = moonPull(days), moonAfter = moonPull(days + MOON_STEP_DAYS);
+  const distance = Math.hypot(r[0], r[1], r[2]);
   const k = -GM_SUN_AU3_PER_DAY2 / distance ** 3;
   const rDotV = r[0] * v[0] + r[1] * v[1] + r[2] * v[2];
-  const moon = moonPull(days), moonBefore = moonPull(days - 0.05), moonAfter = moonPull(days + 0.05);
   for (let i = 0; i < 3; i++) {
     c[NC_POSITION + i] = earth.barycentricPositionAu[i];
     c[NC_VELOCITY + i] = v[i];
     c[NC_HELIO + i] = r[i];
     c[NC_ACCELERATION + i] = k * r[i] + moon[i];
-    c[NC_JERK + i] = k * (v[i] - (3 * rDotV * r[i]) / (distance * distance)) + (moonAfter[i] - moonBefore[i]) / 0.1;
+    c[NC_JERK + i] = k * (v[i] - (3 * rDotV * r[i]) / (distance * distance)) + (moonAfter[i] - moon[i]) / MOON_STEP_DAYS;
   }
+}
+
+/**
+ * Step of the Moon's forward difference (days). The Moon's pull turns with its 27.3-day orbit, so
+ * the forward difference errs by about ½·step·ω ≈ 0.6% of the Moon's jerk, whose whole effect over
+ * half a day is 0.08 m/s of Earth's velocity (0.06 mas of aberration): below 0.5 µas.
+ */
+const MOON_STEP_DAYS = 0.05;
+
+/** The Moon's pull on Earth (au/day²) at TT `daysSinceJ2000`: GM_m r_m / r_m³. */
+function moonPull(daysSinceJ2000: number): Vec3 {
+  const m = moonGeocentricAu(daysSinceJ2000);
+  const k = GM_MOON_AU3_PER_DAY2 / Math.hypot(m[0], m[1], m[2]) ** 3;
+  return [m[0] * k, m[1] * k, m[2] * k];
 }
 
 /**

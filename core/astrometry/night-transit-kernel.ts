@@ -130,7 +130,7 @@ function quartic(c: Float64Array, offset: number, u: number): number {
   return c[offset] + u * (c[offset + 1] + u * (c[offset + 2] + u * (c[offset + 3] + u * c[offset + 4])));
 }
 
-/** As in reduction-kernel.ts, with the three reciprocals taken once. */
+/** As in reduction-kernel.ts, with the three reciprocals taken once (a table-driven arctangent in place of Math.atan2 measured no faster). */
 function writeAngles(v: Float64Array, cosLat: number, sinLat: number, out: Float64Array, o: number): void {
   const x = v[0], y = v[1], z = v[2];
   const horizontal2 = x * x + y * y;

@@ -13,12 +13,14 @@
  *
  * Input: TT as a two-part JD. Output: radians. Accuracy of IAU 2000A against VLBI: about 0.2 mas
  * (free core nutation not modelled; it is in the IERS dX, dY).
- * Terms are evaluated through HarmonicArguments (products of precomputed multiples instead of one
- * sin/cos pair per term); the loops read typed arrays and allocate nothing but the returned object.
+ * Terms are evaluated through FactoredHarmonics (products of precomputed multiples instead of one
+ * sin/cos pair per term, shared sub-combinations evaluated once); the loops read typed arrays and
+ * allocate nothing but the returned object.
  */
 import { julianCenturiesSinceJ2000, type JulianDate } from '../time/julian-date.ts';
 import { ARCSEC, MAS, TAU } from '../units.ts';
 import * as arg from './fundamental-arguments.ts';
+import { FactoredHarmonics } from './factored-harmonics.ts';
 import { HarmonicArguments } from './harmonic-arguments.ts';
 import {
   LUNISOLAR_2000B_TERM_COUNT,
@@ -39,16 +41,20 @@ export interface Nutation {
 /** 0.1 µas in radians: the unit of the published amplitudes. */
 const TENTH_MICROARCSEC = ARCSEC / 1e7;
 
-const lunisolarHarmonics = new HarmonicArguments(LUNISOLAR_MULTIPLIERS, 5);
+// Luni-solar rows split as (l, l′, F) | (D, Ω), planetary rows after Ω (see factored-harmonics.ts);
+// 2000B has its own evaluator over its 77 rows so it does not pay for the 2000A sub-rows.
+const lunisolarHarmonics = new FactoredHarmonics(LUNISOLAR_MULTIPLIERS, 5, 3);
+const lunisolar2000bHarmonics = new FactoredHarmonics(LUNISOLAR_MULTIPLIERS.subarray(0, 5 * LUNISOLAR_2000B_TERM_COUNT), 5, 3);
 const planetaryHarmonics = new HarmonicArguments(PLANETARY_MULTIPLIERS, 13);
 const delaunay = new Float64Array(5);
 const planetaryArguments = new Float64Array(13);
 const sums = new Float64Array(2);
 
 /** Luni-solar sums (in 0.1 µas) of the first `termCount` terms at Delaunay arguments l, l′, F, D, Ω. */
-function lunisolarSum(t: number, termCount: number, out: Float64Array): void {
-  lunisolarHarmonics.evaluate(delaunay, termCount);
-  const { sines, cosines } = lunisolarHarmonics;
+function lunisolarSum(harmonics: FactoredHarmonics, t: number, termCount: number, out: Float64Array): void {
+  harmonics.evaluate(delaunay, termCount);
+  const { sines, cosines } = harmonics;
+  const amplitudes = LUNISOLAR_AMPLITUDES; // a local: an imported binding is re-read at every use
   let dpsi = 0;
   let deps = 0;
   // Smallest terms first, as the published tables are summed, to limit rounding.
@@ -56,8 +62,8 @@ function lunisolarSum(t: number, termCount: number, out: Float64Array): void {
     const s = sines[i];
     const c = cosines[i];
     const a = 6 * i;
-    dpsi += (LUNISOLAR_AMPLITUDES[a] + LUNISOLAR_AMPLITUDES[a + 1] * t) * s + LUNISOLAR_AMPLITUDES[a + 2] * c;
-    deps += (LUNISOLAR_AMPLITUDES[a + 3] + LUNISOLAR_AMPLITUDES[a + 4] * t) * c + LUNISOLAR_AMPLITUDES[a + 5] * s;
+    dpsi += (amplitudes[a] + amplitudes[a + 1] * t) * s + amplitudes[a + 2] * c;
+    deps += (amplitudes[a + 3] + amplitudes[a + 4] * t) * c + amplitudes[a + 5] * s;
   }
   out[0] = dpsi;
   out[1] = deps;
@@ -79,16 +85,18 @@ function planetarySum(t: number, out: Float64Array): void {
   p[10] = arg.meanLongitudeUranus(t);
   p[11] = (5.321159 + 3.8127774 * t) % TAU; // Neptune, MHB2000
   p[12] = arg.generalPrecessionInLongitude(t);
-  planetaryHarmonics.evaluate(p, PLANETARY_TERM_COUNT);
+  const planetaryTermCount = PLANETARY_TERM_COUNT;
+  planetaryHarmonics.evaluate(p, planetaryTermCount);
   const { sines, cosines } = planetaryHarmonics;
+  const amplitudes = PLANETARY_AMPLITUDES;
   let dpsi = 0;
   let deps = 0;
-  for (let i = PLANETARY_TERM_COUNT - 1; i >= 0; i--) {
+  for (let i = planetaryTermCount - 1; i >= 0; i--) {
     const s = sines[i];
     const c = cosines[i];
     const a = 4 * i;
-    dpsi += PLANETARY_AMPLITUDES[a] * s + PLANETARY_AMPLITUDES[a + 1] * c;
-    deps += PLANETARY_AMPLITUDES[a + 2] * s + PLANETARY_AMPLITUDES[a + 3] * c;
+    dpsi += amplitudes[a] * s + amplitudes[a + 1] * c;
+    deps += amplitudes[a + 2] * s + amplitudes[a + 3] * c;
   }
   out[0] = dpsi;
   out[1] = deps;
@@ -102,7 +110,7 @@ export function nutation00a(tt: JulianDate): Nutation {
   delaunay[2] = arg.meanArgumentOfLatitudeMoon(t);
   delaunay[3] = arg.meanElongationMoonMhb2000(t);
   delaunay[4] = arg.meanLongitudeMoonNode(t);
-  lunisolarSum(t, LUNISOLAR_TERM_COUNT, sums);
+  lunisolarSum(lunisolarHarmonics, t, LUNISOLAR_TERM_COUNT, sums);
   const dpsiLunisolar = sums[0];
   const depsLunisolar = sums[1];
   planetarySum(t, sums);
@@ -129,7 +137,7 @@ export function nutation00b(tt: JulianDate): Nutation {
   delaunay[2] = ((335779.526232 + 1739527262.8478 * t) % 1296000) * ARCSEC;
   delaunay[3] = ((1072260.70369 + 1602961601.209 * t) % 1296000) * ARCSEC;
   delaunay[4] = ((450160.398036 - 6962890.5431 * t) % 1296000) * ARCSEC;
-  lunisolarSum(t, LUNISOLAR_2000B_TERM_COUNT, sums);
+  lunisolarSum(lunisolar2000bHarmonics, t, LUNISOLAR_2000B_TERM_COUNT, sums);
   return {
     dpsiRad: sums[0] * TENTH_MICROARCSEC - 0.135 * MAS,
     depsRad: sums[1] * TENTH_MICROARCSEC + 0.388 * MAS,
