@@ -11,7 +11,7 @@ const HORIZON_COS = Math.cos((89.5 * Math.PI) / 180);
 /**
  * Refracts the hour-angle-frame unit vector t[0..2] in place — turns it toward the zenith by
  * δ = A tan Z + B tan³ Z at the observed Z = Z₀ − δ (refraction.ts) — and carries the tangent
- * vectors t[3..5], t[6..8] through the exact derivative of that map. No trigonometric calls:
+ * vectors t[3..5], t[6..8] (perpendicular to t[0..2]) through the exact derivative of that map. No trigonometric calls:
  * tan Z = tan(Z₀ − δ) from tan Z₀ and the series of tan δ, two Newton steps on δ starting from
  * δ = R(Z₀) (residual < 1e-15 rad for Z < 85°), cos δ and sin δ by their series (δ < 0.01 rad, 1e-16).
  * Does nothing without refraction or beyond Z₀ = 89.5°; within 1e-9 rad of the zenith the tangents
@@ -55,21 +55,22 @@ export function refractTangents(a: number, b: number, cosLat: number, sinLat: nu
   const d2 = delta * delta;
   const cosDelta = 1 - d2 * (0.5 - d2 / 24);
   const sinDelta = delta * (1 - d2 * (1 / 6 - d2 / 120));
-  // w: unit vector toward the zenith, perpendicular to the direction.
+  // w: unit vector toward the zenith, perpendicular to the direction; e = x × w, along the almucantar.
   const inverseSin = 1 / sinZ;
   const wx = (cosLat - cosZ * x) * inverseSin, wy = -cosZ * y * inverseSin, wz = (sinLat - cosZ * z) * inverseSin;
+  const ex = y * sinLat * inverseSin, ey = -sx * inverseSin, ez = -y * cosLat * inverseSin;
+  // The map keeps the azimuth and sends Z₀ to Z₀ − δ(Z₀): a tangent's part along w is scaled by
+  // 1 − dδ/dZ₀ and turned with the direction (w → w cos δ − x sin δ), its part along e by
+  // sin Z / sin Z₀ = cos δ − sin δ / tan Z₀. Exact for tangents (perpendicular to x).
+  const vertical = 1 - gain, horizontal = cosDelta - sinDelta * cosZ * inverseSin;
+  const turnedX = wx * cosDelta - x * sinDelta, turnedY = wy * cosDelta - y * sinDelta, turnedZ = wz * cosDelta - z * sinDelta;
   for (let k = 3; k < 9; k += 3) {
     const dx = t[k], dy = t[k + 1], dz = t[k + 2];
-    const dCos = dx * cosLat + dz * sinLat;
-    const dTrue = -dCos * inverseSin;
-    const dDelta = gain * dTrue;
-    const dSinRatio = cosZ * dTrue * inverseSin;
-    const dwx = (-dCos * x - cosZ * dx) * inverseSin - wx * dSinRatio;
-    const dwy = (-dCos * y - cosZ * dy) * inverseSin - wy * dSinRatio;
-    const dwz = (-dCos * z - cosZ * dz) * inverseSin - wz * dSinRatio;
-    t[k] = cosDelta * dx - sinDelta * dDelta * x + sinDelta * dwx + cosDelta * dDelta * wx;
-    t[k + 1] = cosDelta * dy - sinDelta * dDelta * y + sinDelta * dwy + cosDelta * dDelta * wy;
-    t[k + 2] = cosDelta * dz - sinDelta * dDelta * z + sinDelta * dwz + cosDelta * dDelta * wz;
+    const along = (dx * wx + dy * wy + dz * wz) * vertical;
+    const across = (dx * ex + dy * ey + dz * ez) * horizontal;
+    t[k] = along * turnedX + across * ex;
+    t[k + 1] = along * turnedY + across * ey;
+    t[k + 2] = along * turnedZ + across * ez;
   }
   t[0] = x * cosDelta + wx * sinDelta;
   t[1] = y * cosDelta + wy * sinDelta;
