@@ -26,9 +26,19 @@ export class Sha256 {
 
   update(bytes: Uint8Array): this {
     if (this.finished) throw new Error('Sha256.update: the digest was already taken; start a new Sha256');
-    for (let i = 0; i < bytes.length; i++) {
-      this.block[this.blockLength++] = bytes[i];
-      if (this.blockLength === 64) this.compress();
+    let i = 0;
+    // Fill a partly filled block first, then hash whole blocks straight from the input (no copy).
+    if (this.blockLength > 0) {
+      const take = Math.min(64 - this.blockLength, bytes.length);
+      this.block.set(bytes.subarray(0, take), this.blockLength);
+      this.blockLength += take;
+      i = take;
+      if (this.blockLength === 64) this.compress(this.block, 0);
+    }
+    for (; i + 64 <= bytes.length; i += 64) this.compress(bytes, i);
+    if (i < bytes.length) {
+      this.block.set(bytes.subarray(i), 0);
+      this.blockLength = bytes.length - i;
     }
     this.totalBytes += bytes.length;
     return this;
@@ -46,29 +56,30 @@ export class Sha256 {
     this.block[this.blockLength++] = 0x80;
     if (this.blockLength > 56) {
       this.block.fill(0, this.blockLength);
-      this.blockLength = 64;
-      this.compress();
+      this.compress(this.block, 0);
     }
     this.block.fill(0, this.blockLength);
     const view = new DataView(this.block.buffer);
     view.setUint32(56, bitsHigh);
     view.setUint32(60, bitsLow);
-    this.blockLength = 64;
-    this.compress();
+    this.compress(this.block, 0);
     this.finished = true;
   }
 
-  private compress(): void {
+  /** One 64-byte block of `b` from `offset` (section 6.2.2); plain locals, no temporary arrays. */
+  private compress(b: Uint8Array, offset: number): void {
     const w = this.words;
-    const b = this.block;
-    for (let t = 0; t < 16; t++) w[t] = (b[4 * t] << 24) | (b[4 * t + 1] << 16) | (b[4 * t + 2] << 8) | b[4 * t + 3];
+    for (let t = 0; t < 16; t++) {
+      const o = offset + 4 * t;
+      w[t] = (b[o] << 24) | (b[o + 1] << 16) | (b[o + 2] << 8) | b[o + 3];
+    }
     for (let t = 16; t < 64; t++) {
       const s0 = rotr(w[t - 15], 7) ^ rotr(w[t - 15], 18) ^ (w[t - 15] >>> 3);
       const s1 = rotr(w[t - 2], 17) ^ rotr(w[t - 2], 19) ^ (w[t - 2] >>> 10);
       w[t] = (w[t - 16] + s0 + w[t - 7] + s1) | 0;
     }
     const s = this.state;
-    let [a, bb, c, d, e, f, g, h] = [s[0], s[1], s[2], s[3], s[4], s[5], s[6], s[7]];
+    let a = s[0], bb = s[1], c = s[2], d = s[3], e = s[4], f = s[5], g = s[6], h = s[7];
     for (let t = 0; t < 64; t++) {
       const t1 = (h + (rotr(e, 6) ^ rotr(e, 11) ^ rotr(e, 25)) + ((e & f) ^ (~e & g)) + K[t] + w[t]) | 0;
       const t2 = ((rotr(a, 2) ^ rotr(a, 13) ^ rotr(a, 22)) + ((a & bb) ^ (a & c) ^ (bb & c))) | 0;
