@@ -9,9 +9,15 @@ import { symmetricGeneralisedInverse } from './small-inverse.ts';
  * b_t (needed for the reduction, not for back-substitution). Cost: Σ over the block's rows of
  * (terms per row)², plus l²·t for G. Sums are plain: a block holds few rows (≤ ~10³), so the
  * rounding error stays near 10³·ε; the large sums over blocks are compensated elsewhere.
+ *
+ * With `globalEstimate` (the cheap back-substitution of intermediate robust passes) the globals
+ * are taken as known: each residual is reduced by Σ partial·estimate first, so that
+ * y = A⁻¹(b_l − N_lt·g) comes out directly, and N_lt, G and the touched list are skipped
+ * (touchedCount 0). Cost then Σ rows (local terms)² + (global terms), instead of + l²·t for G.
  */
 export function accumulateBlock(
   prep: PreparedProblem, block: number, weight: Float64Array, ws: BlockWorkspace, withTouched: boolean,
+  globalEstimate: Float64Array | null = null,
 ): void {
   const rows = prep.rows;
   const { order, groupStart, localFixed, effectiveResidual } = prep;
@@ -21,7 +27,8 @@ export function accumulateBlock(
   const l = block < prep.blockCount ? prep.localOffset[block + 1] - prep.localOffset[block] : 0;
   const localBase = block < prep.blockCount ? prep.localOffset[block] : 0;
   ws.localCount = l;
-  const t = loadTouched(prep, block, ws);
+  const t = globalEstimate ? 0 : loadTouched(prep, block, ws);
+  if (globalEstimate) ws.touchedCount = 0;
   const A = ws.normalLocal;
   const Nlt = ws.normalLocalTouched;
   const Ntt = ws.normalTouched;
@@ -38,17 +45,21 @@ export function accumulateBlock(
     const k = order[i];
     const w = weight[k];
     if (w === 0) continue;
-    const r = effectiveResidual[k];
+    let r = effectiveResidual[k];
     // The row's free terms, compacted once: touched positions / local indices and partials.
     const g0 = rows.globalStart[k];
     const l0 = rows.localStart[k];
     ensureRowScratch(rows.globalStart[k + 1] - g0, rows.localStart[k + 1] - l0);
     let gn = 0;
-    for (let p = g0; p < rows.globalStart[k + 1]; p++) {
-      const slot = termSlot[p];
-      if (slot < 0) continue;
-      rowPosition[gn] = slot;
-      rowGlobalPartial[gn++] = rows.globalPartial[p];
+    if (globalEstimate) {
+      for (let p = g0; p < rows.globalStart[k + 1]; p++) if (termSlot[p] >= 0) r -= rows.globalPartial[p] * globalEstimate[rows.globalIndex[p]];
+    } else {
+      for (let p = g0; p < rows.globalStart[k + 1]; p++) {
+        const slot = termSlot[p];
+        if (slot < 0) continue;
+        rowPosition[gn] = slot;
+        rowGlobalPartial[gn++] = rows.globalPartial[p];
+      }
     }
     let ln = 0;
     for (let p = l0; p < rows.localStart[k + 1]; p++) {

@@ -5,7 +5,7 @@ import type { GlobalSolution } from './solve-globals.ts';
 
 /**
  * Locals, their per-block covariances, post-fit residuals and leverages (all a-priori scale).
- * Without `withCovariance`, localCovariance stays zero and leverage holds only its block-local part.
+ * Without `withCovariance`, localCovariance is empty and leverage holds only its block-local part.
  */
 export interface BackSubstitution {
   /** Local corrections, flat by PreparedProblem.localOffset (fixed locals read 0 here). */
@@ -39,7 +39,7 @@ export function backSubstitute(
   }
   const out: BackSubstitution = {
     localEstimate: new Float64Array(prep.localOffset[prep.blockCount]),
-    localCovariance: new Float64Array(covarianceOffset[prep.blockCount]),
+    localCovariance: new Float64Array(withCovariance ? covarianceOffset[prep.blockCount] : 0),
     covarianceOffset,
     residual: new Float64Array(rows.count),
     leverage: new Float64Array(rows.count),
@@ -48,7 +48,8 @@ export function backSubstitute(
   const total = prep.blockCount + 1;
   for (let block = 0; block < total; block++) {
     if ((block & 255) === 0) onBlock(block, total);
-    accumulateBlock(prep, block, weight, ws, false);
+    // Intermediate passes take the globals as known and skip G (see accumulateBlock).
+    accumulateBlock(prep, block, weight, ws, false, withCovariance ? null : solution.estimate);
     const l = ws.localCount;
     const t = ws.touchedCount;
     if (cross.length < l * t) cross = new Float64Array(l * t * 2);

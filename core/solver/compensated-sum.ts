@@ -3,8 +3,8 @@
  * summation: A. Neumaier, Z. Angew. Math. Mech. 54, 39–51, 1974). Error bound 2ε·Σ|terms|
  * independent of the number of terms, against (terms)·ε for a plain running sum.
  *
- * Used in two levels: contributions are first added plainly into `chunk` (a few dozen blocks, so
- * the plain error stays near 30·ε), then `flush()` adds the chunk to the compensated total.
+ * Used in two levels: contributions are first added plainly into `chunk` (a few hundred blocks, so
+ * the plain error stays near 256·ε), then `flush()` adds the chunk to the compensated total.
  * That keeps the per-term cost of the inner loop at one addition.
  */
 export class CompensatedArraySum {

@@ -117,7 +117,7 @@ function iterate(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, robu
     const change = reweigh(rows, pass.back, robust, false);
     const converged = change <= robust.weightTolerance;
     if (converged || iteration === limit) {
-      rows.factor.set(Float64Array.from(rows.weight, (w, k) => (rows.baseWeight[k] > 0 ? w / rows.baseWeight[k] : 1)));
+      for (let k = 0; k < rows.weight.length; k++) rows.factor[k] = rows.baseWeight[k] > 0 ? rows.weight[k] / rows.baseWeight[k] : 1;
       // The pass solved the globals without covariance; the same reduced system now gives Q.
       report('solve', 0, iteration);
       const globals = solveGlobals(prep, pass.reduced, true);
@@ -127,7 +127,9 @@ function iterate(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, robu
       reweigh(rows, back, robust, true);
       return { pass, iterations: iteration, converged };
     }
-    rows.weight = Float64Array.from(rows.baseWeight, (w, k) => w * rows.factor[k]);
+    const next = new Float64Array(rows.baseWeight.length);
+    for (let k = 0; k < next.length; k++) next[k] = rows.baseWeight[k] * rows.factor[k];
+    rows.weight = next;
   }
 }
 

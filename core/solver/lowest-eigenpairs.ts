@@ -11,7 +11,8 @@ const INVERSE_ITERATIONS = 3;
 
 /**
  * All eigenvalues and the `count` lowest eigenvectors of a real symmetric n×n matrix (row-major,
- * not modified), for reports that list only the weakest directions: Householder tridiagonalisation
+ * not modified; `count` may be a function of the ascending eigenvalues),
+ * for reports that list only the weakest directions: Householder tridiagonalisation
  * without accumulating Q (~n³ multiply-adds), implicit QL for the eigenvalues alone (O(n²)), then
  * inverse iteration on the tridiagonal for each wanted eigenvector, reorthogonalised against the
  * ones before it (which separates vectors of close or equal eigenvalues), and the stored reflectors
@@ -22,11 +23,10 @@ const INVERSE_ITERATIONS = 3;
  * residual ‖A·x − λ·x‖ ~ n·ε·‖A‖. Within an exactly repeated eigenvalue any orthonormal basis of
  * its eigenspace is as valid as another, so the vectors there may differ from symmetricEigen's.
  */
-export function lowestEigenpairs(matrix: Float64Array, n: number, count: number): LowestEigenpairs {
+export function lowestEigenpairs(matrix: Float64Array, n: number, count: number | ((values: Float64Array) => number)): LowestEigenpairs {
   for (let i = 0; i < n * n; i++) {
     if (!Number.isFinite(matrix[i])) throw new Error(`lowestEigenpairs: element (${Math.floor(i / n)}, ${i % n}) is ${matrix[i]}; pass a finite matrix`);
   }
-  const wanted = Math.max(0, Math.min(count, n));
   const a = matrix.slice(0, n * n);
   const d = new Float64Array(n);
   const e = new Float64Array(n);
@@ -37,6 +37,8 @@ export function lowestEigenpairs(matrix: Float64Array, n: number, count: number)
   const offDiagonal = e.slice();
   tridiagonalQl(d, e, n, null);
   const values = d.slice().sort();
+  // `count` may depend on the eigenvalues (e.g. how many fall below a threshold).
+  const wanted = Math.max(0, Math.min(typeof count === 'number' ? count : count(values), n));
   const vectors = new Float64Array(wanted * n);
   let norm = 0;
   for (let i = 0; i < n; i++) norm = Math.max(norm, Math.abs(diagonal[i]) + Math.abs(offDiagonal[i]) + (i > 0 ? Math.abs(offDiagonal[i - 1]) : 0));

@@ -25,7 +25,8 @@ export interface ReducedSystem {
   readonly singularBlocks: readonly { block: number; vectors: readonly Float64Array[]; relativeEigenvalues: readonly number[] }[];
 }
 
-const BLOCKS_PER_CHUNK = 128;
+/** Blocks summed plainly before each compensated flush (plain error ~256·ε of a chunk; a flush costs n²). */
+const BLOCKS_PER_CHUNK = 256;
 
 function subtractSchur(ws: BlockWorkspace): void {
   // N_tt −= N_ltᵀ·G over the upper triangle; b_t −= N_ltᵀ·y. Cost l·t²/2. Up to four locals per
@@ -87,23 +88,22 @@ function scatter(ws: BlockWorkspace, n: number, normal: Float64Array, rhs: Float
 }
 
 function addConstraintTerms(ws: BlockWorkspace, m: number, n: number, B: Float64Array, E: Float64Array, d: Float64Array): void {
+  // With c the constraint's row over the block's locals (usually one nonzero): d −= c·y,
+  // E += c·A⁻¹·cᵀ = c·H, B −= c·A⁻¹·N_lt = c·G (A⁻¹ symmetric), skipping c's zeros.
   const l = ws.localCount;
   const t = ws.touchedCount;
   const stride = ws.maxLocals;
+  const G = ws.gain;
   for (let s = 0; s < ws.constraintCount; s++) {
     const c = ws.constraintIndex[s];
-    let cy = 0;
-    for (let i = 0; i < l; i++) cy += ws.constraintRow[s * stride + i] * ws.solvedLocal[i];
-    d[c] -= cy;
-    for (let u = 0; u < ws.constraintCount; u++) {
-      let e = 0;
-      for (let i = 0; i < l; i++) e += ws.constraintRow[s * stride + i] * ws.constraintGain[u * stride + i];
-      E[c * m + ws.constraintIndex[u]] += e;
-    }
-    for (let x = 0; x < t; x++) {
-      let sum = 0;
-      for (let i = 0; i < l; i++) sum += ws.constraintGain[s * stride + i] * ws.normalLocalTouched[i * t + x];
-      B[c * n + ws.touched[x]] -= sum;
+    const rowB = c * n;
+    for (let i = 0; i < l; i++) {
+      const coefficient = ws.constraintRow[s * stride + i];
+      if (coefficient === 0) continue;
+      d[c] -= coefficient * ws.solvedLocal[i];
+      for (let u = 0; u < ws.constraintCount; u++) E[c * m + ws.constraintIndex[u]] += coefficient * ws.constraintGain[u * stride + i];
+      const rowG = i * t;
+      for (let x = 0; x < t; x++) B[rowB + ws.touched[x]] -= coefficient * G[rowG + x];
     }
   }
 }

@@ -1,4 +1,6 @@
 import { choleskyInPlace, choleskyInverse } from './cholesky.ts';
+import { nullSpaceInverse } from './null-space-inverse.ts';
+import type { DroppedDirection } from './null-space-inverse.ts';
 import { symmetricEigen } from './symmetric-eigen.ts';
 
 /**
@@ -9,20 +11,18 @@ import { symmetricEigen } from './symmetric-eigen.ts';
  */
 export const SINGULAR_RELATIVE_EIGENVALUE = 1e-12;
 
-/** A direction dropped from a generalised inverse, in the scaled (unit-diagonal) coordinates. */
-export interface DroppedDirection {
-  /** Eigenvalue of the scaled matrix divided by its largest eigenvalue. */
-  readonly relativeEigenvalue: number;
-  /** Unit eigenvector over the matrix's n parameters (scaled coordinates). */
-  readonly vector: Float64Array;
-}
+export type { DroppedDirection } from './null-space-inverse.ts';
+
+/** Above this size the singular case goes through nullSpaceInverse (~2n³) rather than a full eigen-decomposition (~10n³). */
+const NULL_SPACE_ROUTE_MINIMUM = 24;
 
 /**
  * Inverse of a symmetric positive semi-definite n×n matrix (row-major), written into `inverse`.
  * The matrix is scaled to unit diagonal (Jacobi scaling, which makes the pivot test independent
  * of parameter units), then inverted by Cholesky; if a pivot falls below
  * SINGULAR_RELATIVE_EIGENVALUE the scaled matrix is eigen-decomposed instead and directions with
- * relative eigenvalue at or below that threshold are dropped — a generalised inverse that gives
+ * relative eigenvalue at or below that threshold are dropped (for n ≥ 24 through
+ * nullSpaceInverse, which needs only the dropped eigenvectors) — a generalised inverse that gives
  * the minimum-norm solution in scaled coordinates. Parameters with a zero diagonal (no
  * information at all) come out with zero rows and columns. Returns the dropped directions
  * (empty when Cholesky succeeded). `matrix` is not modified.
@@ -52,8 +52,13 @@ export function symmetricGeneralisedInverse(matrix: Float64Array, n: number, inv
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) scaled[i * n + j] = matrix[i * n + j] * scale[i] * scale[j];
   }
-  const dropped: DroppedDirection[] = [];
   for (let i = 0; i < n; i++) if (scale[i] === 0) scaled[i * n + i] = 0;
+  const viaNullSpace = n >= NULL_SPACE_ROUTE_MINIMUM ? nullSpaceInverse(scaled.subarray(0, n * n), n, SINGULAR_RELATIVE_EIGENVALUE, inverse) : null;
+  if (viaNullSpace) {
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) inverse[i * n + j] *= scale[i] * scale[j];
+    return viaNullSpace;
+  }
+  const dropped: DroppedDirection[] = [];
   const { values, vectors } = symmetricEigen(scaled.subarray(0, n * n), n);
   const largest = Math.max(values[n - 1], Number.MIN_VALUE);
   inverse.fill(0, 0, n * n);

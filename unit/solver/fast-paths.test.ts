@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { jointSolve } from '../../core/solver/joint-solve.ts';
 import { lowestEigenpairs } from '../../core/solver/lowest-eigenpairs.ts';
+import { symmetricGeneralisedInverse } from '../../core/solver/small-inverse.ts';
 import type { LinearConstraint } from '../../core/solver/problem.ts';
 import { denseSolve } from './dense-reference.ts';
 import { randomProblem } from './random-problem.ts';
@@ -109,5 +110,79 @@ describe('robust jointSolve (intermediate passes solved from the factor, the las
       expect(Math.abs(solution.globalCovariance[g * n + g] - dense.covariance[g * p + g])).toBeLessThan(1e-9 * dense.covariance[g * p + g]);
     }
     dense.leverage.forEach((h, k) => expect(Math.abs(solution.leverage[k] - h)).toBeLessThan(1e-9));
+  });
+});
+
+/** Gauss–Jordan inverse with partial pivoting of a small regular matrix (independent of core/solver). */
+function gaussJordan(matrix: Float64Array, n: number): Float64Array {
+  const a = matrix.slice();
+  const inverse = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) inverse[i * n + i] = 1;
+  for (let column = 0; column < n; column++) {
+    let pivot = column;
+    for (let r = column + 1; r < n; r++) if (Math.abs(a[r * n + column]) > Math.abs(a[pivot * n + column])) pivot = r;
+    for (let c = 0; c < n; c++) {
+      [a[column * n + c], a[pivot * n + c]] = [a[pivot * n + c], a[column * n + c]];
+      [inverse[column * n + c], inverse[pivot * n + c]] = [inverse[pivot * n + c], inverse[column * n + c]];
+    }
+    const p = a[column * n + column];
+    for (let c = 0; c < n; c++) {
+      a[column * n + c] /= p;
+      inverse[column * n + c] /= p;
+    }
+    for (let r = 0; r < n; r++) {
+      if (r === column) continue;
+      const f = a[r * n + column];
+      for (let c = 0; c < n; c++) {
+        a[r * n + c] -= f * a[column * n + c];
+        inverse[r * n + c] -= f * inverse[column * n + c];
+      }
+    }
+  }
+  return inverse;
+}
+
+describe('symmetricGeneralisedInverse on a singular matrix above the null-space route size', () => {
+  it('agrees with the pseudo-inverse Y(YᵀY)⁻²Yᵀ of A = Y·Yᵀ to 1e-9 and returns the null space', () => {
+    // For A = Y·Yᵀ with Y (n×r) of full column rank, A⁺ = Y·(YᵀY)⁻²·Yᵀ (it satisfies the four
+    // Penrose conditions; Ben-Israel & Greville, Generalized Inverses, ch. 1, from memory). Rows of
+    // Y are scaled so that A has unit diagonal, where the solver's minimum norm (in scaled
+    // coordinates) is the Moore–Penrose one. n = 40 ≥ 24 takes the null-space route.
+    const random = seededRandom(304);
+    const n = 40;
+    const r = 35;
+    const y = Float64Array.from({ length: n * r }, () => gaussian(random));
+    for (let i = 0; i < n; i++) {
+      const norm = Math.hypot(...y.subarray(i * r, i * r + r));
+      for (let k = 0; k < r; k++) y[i * r + k] /= norm;
+    }
+    const a = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) for (let k = 0; k < r; k++) a[i * n + j] += y[i * r + k] * y[j * r + k];
+    const gram = new Float64Array(r * r);
+    for (let p = 0; p < r; p++) for (let q = 0; q < r; q++) for (let i = 0; i < n; i++) gram[p * r + q] += y[i * r + p] * y[i * r + q];
+    const g = gaussJordan(gram, r);
+    const g2 = new Float64Array(r * r);
+    for (let p = 0; p < r; p++) for (let q = 0; q < r; q++) for (let k = 0; k < r; k++) g2[p * r + q] += g[p * r + k] * g[k * r + q];
+    const want = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j < n; j++) {
+        let sum = 0;
+        for (let p = 0; p < r; p++) for (let q = 0; q < r; q++) sum += y[i * r + p] * g2[p * r + q] * y[j * r + q];
+        want[i * n + j] = sum;
+      }
+    }
+    const got = new Float64Array(n * n);
+    const dropped = symmetricGeneralisedInverse(a, n, got);
+    expect(dropped.length).toBe(n - r);
+    const scale = Math.max(...want.map(Math.abs));
+    for (let i = 0; i < n * n; i++) expect(Math.abs(got[i] - want[i])).toBeLessThan(1e-9 * scale);
+    for (const direction of dropped) {
+      expect(direction.relativeEigenvalue).toBeLessThan(1e-12);
+      for (let k = 0; k < r; k++) {
+        let dot = 0;
+        for (let i = 0; i < n; i++) dot += y[i * r + k] * direction.vector[i];
+        expect(Math.abs(dot)).toBeLessThan(1e-12);
+      }
+    }
   });
 });
