@@ -1,5 +1,5 @@
 import { ObservationRowsBuilder } from '../solver/index.ts';
-import type { LinearConstraint, ParameterPrior, SolverProblem } from '../solver/index.ts';
+import type { FixedParameter, LinearConstraint, ParameterPrior, SolverProblem } from '../solver/index.ts';
 import type { StarListRow } from '../formats/star-list.ts';
 import { diurnalAberrationMas, diurnalPartialMas, diurnalSeparability, latitudePhases, zenithPerLatitude } from './common-terms.ts';
 import type { JointModel, SegmentableTerm } from './joint-model.ts';
@@ -40,8 +40,10 @@ export interface JointLayout {
   /** Instrument terms held per segment between events, and per term the segment of each night (−1: per night). */
   readonly segments: readonly TermSegment[];
   readonly nightSegment: Readonly<Record<SegmentableTerm, Int32Array>>;
-  /** Terms the data cannot carry and that were therefore not estimated, in words. */
+  /** Terms the data cannot carry and that were therefore held at their adopted value (fixed at 0), in words. */
   readonly notEstimated: readonly string[];
+  /** The diurnal-aberration scale was held because the data cannot tell it from collimation. */
+  readonly diurnalHeld: boolean;
 }
 
 /** What buildJointProblem needs beyond the model and the reduced archive: all optional. */
@@ -204,20 +206,23 @@ export function buildJointProblem(model: JointModel, stars: readonly StarListRow
   for (let n = 0; n < nights.length; n++) { blockLocalCount[2 * n] = l.raLocalCount; blockLocalCount[2 * n + 1] = l.zeroPoint >= 0 ? 1 : 0; }
   const priors = priorsOf(model, stars, nights, g, l);
   const constraints = constraintsOf(model, observations, stars, nights, priors, g, l);
-  if (noTemperature) { constraints.push(...[g.temperatureRa, g.temperatureDec].map((index) => ({ label: 'temperature coefficient held at 0: no temperatures recorded', terms: [{ parameter: { kind: 'global' as const, index }, coefficient: 1 }], value: 0 }))); }
+  // Terms the data cannot carry are held (fixed) rather than constrained: a constraint on a direction the normal matrix lacks altogether is refused by the solver.
+  const fixed: FixedParameter[] = noTemperature ? [g.temperatureRa, g.temperatureDec].map((index) => ({ parameter: { kind: 'global' as const, index }, value: 0 })) : [];
+  let diurnalHeld = false;
   if (g.diurnalAberrationScale >= 0) {
     const separable = diurnalSeparability(observations, free(model.collimation), (o) => (nightSegment.collimation[o.night] >= 0 ? -1 - nightSegment.collimation[o.night] : o.night));
     if (!separable.separable) {
-      constraints.push({ label: `${separable.reason}: held at its adopted value (scale correction 0)`, terms: [{ parameter: { kind: 'global', index: g.diurnalAberrationScale }, coefficient: 1 }], value: 0 });
+      fixed.push({ parameter: { kind: 'global', index: g.diurnalAberrationScale }, value: 0 });
       notEstimated.push(separable.reason);
+      diurnalHeld = true;
     }
   }
   const localNames = ['clock offset (ms)', 'clock rate (ms/day)', 'azimuth a (mas)', 'level b (mas)', 'collimation c (mas)'].filter((_, i) => [l.clockOffset, l.clockRate, l.azimuth, l.level, l.collimation][i] >= 0);
   const problem: SolverProblem = {
-    globalNames: names, blockLocalCount, rows: rows.finish(), priors, constraints,
+    globalNames: names, blockLocalCount, rows: rows.finish(), priors, constraints, fixed,
     localName: (block, index) => `${nights[block >> 1]?.id ?? `night ${block >> 1}`} ${block % 2 === 0 ? localNames[index] : 'zero point (mas)'}`,
   };
-  return { problem, layout: { ...g, ...l, raRow, zenithRow, appliedConstraints: constraints.map((c) => c.label), diurnalAberrationMas: diurnalMas, segments, nightSegment, notEstimated } };
+  return { problem, layout: { ...g, ...l, raRow, zenithRow, appliedConstraints: constraints.map((c) => c.label), diurnalAberrationMas: diurnalMas, diurnalHeld, segments, nightSegment, notEstimated } };
 }
 
 /**

@@ -6,7 +6,7 @@ import { solvePrepared } from './solve-archive.ts';
 
 /** Model terms that can be compared in and out (the model file's term keys). */
 export const COMPARABLE_TERMS = ['parallax', 'properMotion', 'deltaKappa', 'refractionScale', 'flexure', 'temperature', 'seasonal',
-  'clockRate', 'azimuth', 'level', 'collimation'] as const;
+  'latitudeVariation', 'clockRate', 'azimuth', 'level', 'collimation'] as const;
 export type ComparableTerm = (typeof COMPARABLE_TERMS)[number];
 
 export interface TermComparison {
@@ -24,9 +24,10 @@ export interface TermComparison {
  * Solves the prepared archive with `term` free and with it absent, both as plain weighted least
  * squares (robust reweighting changes the weights between models, which the F-test forbids), and
  * compares them: F = (Δχ²/Δk)/(χ²_full/(n − k_full)) and BIC. Priors count as observations in both.
+ * Variance components are switched off for the same reason (they re-weight each model differently).
  */
 export function compareTerm(prepared: PreparedArchive, model: JointModel, term: ComparableTerm, control: TaskControl): TermComparison {
-  const solveWith = (setting: TermSetting) => solvePrepared(prepared, { ...model, [term]: setting, robustIterations: 1 }, control).solution;
+  const solveWith = (setting: TermSetting) => solvePrepared(prepared, { ...model, [term]: setting, robustIterations: 1, varianceComponents: false }, control).solution;
   const full = solveWith('free'), reduced = solveWith('absent');
   const summary = (s: typeof full): FitSummary => ({ chiSquare: s.chiSquare, rank: s.rank, fittedRowCount: s.degreesOfFreedom + s.rank });
   const fTest = nestedFTest(summary(reduced), summary(full));

@@ -150,7 +150,7 @@ export function solvePrepared(prepared: PreparedArchive, model: JointModel, cont
   const [f, sf] = value(solution, layout.flexure, 1e-3);
   const [tr, str] = value(solution, layout.temperatureRa, 1e-3), [td, std] = value(solution, layout.temperatureDec, 1e-3);
   const [rs, srs] = value(solution, layout.refractionScale);
-  const [ds, sds] = layout.appliedConstraints.some((c) => c.startsWith('diurnal-aberration scale')) ? [null, null] : value(solution, layout.diurnalAberrationScale);
+  const [ds, sds] = layout.diurnalHeld ? [null, null] : value(solution, layout.diurnalAberrationScale);
   const global = {
     deltaKappaArcsec: dk, deltaKappaSigmaArcsec: sk, flexureArcsec: f === null ? null : model.flexureAprioriArcsec + f, flexureSigmaArcsec: sf,
     temperatureRaArcsecPerC: tr, temperatureRaSigmaArcsecPerC: str, temperatureDecArcsecPerC: td, temperatureDecSigmaArcsecPerC: std,
@@ -159,6 +159,7 @@ export function solvePrepared(prepared: PreparedArchive, model: JointModel, cont
   };
   const series = instrumentSeries(solution, layout, nights, observations);
   const notes = [...prepared.skipped.map((s) => `night not used: ${s}`), ...layout.appliedConstraints.map((c) => `constraint applied: ${c}`), ...solution.warnings];
+  notes.push(...layout.notEstimated.map((n) => `held at its adopted value (0): ${n}`));
   if (varianceComponents && varianceComponents.keptAtOne > 0) notes.push(`variance components: ${varianceComponents.keptAtOne} star or night group(s) with redundancy under 5 kept at factor 1`);
   if (varianceComponents && !varianceComponents.converged) notes.push(`variance components: not converged in ${varianceComponents.iterations} passes (a factor still moved by more than 1 %)`);
   return {

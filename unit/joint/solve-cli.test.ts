@@ -37,6 +37,33 @@ describe('meridian-ledger solve', () => {
     expect(out.residuals, 'residuals only with --residuals').toBeUndefined();
   }, 60_000);
 
+  it('--model with the new terms: segments, latitude variation, variance components and a held diurnal scale in the JSON and the text report', () => {
+    const model = join(dir, 'terms.json');
+    writeFileSync(model, JSON.stringify({ termSpan: { zeroPoint: 'per-segment-drift' }, latitudeVariation: 'free', diurnalAberrationScale: 'free', varianceComponents: true }));
+    const result = run(['solve', join(dir, 'archive'), '--json', '--model', model]);
+    expect(result.status, result.stderr).toBe(0);
+    const out = JSON.parse(result.stdout);
+    const zero = out.segments.filter((s: { term: string }) => s.term === 'zeroPoint');
+    expect(zero.length, 'one zero-point segment per stretch between the simulated events').toBeGreaterThan(0);
+    expect(zero.every((s: { valueSigma: number; driftSigmaPerYear: number }) => s.valueSigma > 0 && s.driftSigmaPerYear > 0)).toBe(true);
+    expect(out.latitudeVariation).toHaveLength(1);
+    expect(out.latitudeVariation[0].periodDays).toBe(433);
+    expect(out.global.diurnalAberrationScale, 'held: the folder has one clamp').toBeNull();
+    expect(out.degeneracies.join(' ')).toMatch(/diurnal-aberration scale: .*cannot be told from collimation/);
+    expect(out.varianceComponents.stars).toHaveLength(8);
+    expect(out.global.temperatureRaArcsecPerC, 'temperature free by default').not.toBeNull();
+    const text = run(['solve', join(dir, 'archive'), '--model', model]);
+    expect(text.status, text.stderr).toBe(0);
+    expect(text.stdout).toMatch(/latitude variation 433 d: cos/);
+    expect(text.stdout).toMatch(/instrument-\S+ zeroPoint 1 \(start – MJD/);
+    expect(text.stdout).toMatch(/Variance components \(\d+ passes/);
+    writeFileSync(model, JSON.stringify({ termSpan: { clockOffset: 'per-segment', collimation: 'weekly' } }));
+    const refused = run(['solve', join(dir, 'archive'), '--model', model]);
+    expect(refused.status).toBe(1);
+    expect(refused.stderr).toMatch(/termSpan.clockOffset: not an instrument term that can span segments/);
+    expect(refused.stderr).toMatch(/termSpan.collimation must be "per-night", "per-segment", "per-segment-drift"/);
+  }, 120_000);
+
   it('--json --residuals adds one row per transit with residual, weight and flag; --residuals alone is a usage error', () => {
     const result = run(['solve', join(dir, 'archive'), '--json', '--residuals']);
     expect(result.status, result.stderr).toBe(0);
