@@ -1,5 +1,5 @@
 import { equinoxComplementaryTerms } from '../earth/equation-of-equinoxes-06.ts';
-import { nutation00b, nutation06a } from '../earth/nutation-series.ts';
+import { nutation00bAtSteps, nutation06a } from '../earth/nutation-series.ts';
 import { applyTranspose, multiply, rotationZ } from '../math/mat3.ts';
 import type { Vec3 } from '../math/vec3.ts';
 import { SECONDS_PER_DAY, TAU } from '../units.ts';
@@ -83,7 +83,7 @@ export function createNightContext(options: NightContextOptions): NightContext {
   const exact = options.mode === 'exact';
   if (exact) fillEarthFromSamples(c, [samples[0].tt, samples[2].tt, samples[4].tt], h);
   else fillEarth(c, centre, days);
-  const orientations = exact ? exactOrientations(samples) : fastOrientations(samples, centre);
+  const orientations = exact ? exactOrientations(samples) : fastOrientations(samples, centre, h);
   fillRotations(c, orientations, options.site.longitudeRad, offsets);
   c[NC_INVERSE_HALF_WIDTH] = 1 / h;
   fillSite(c, options.site, orientations[1].polarMotion);
@@ -104,18 +104,23 @@ function exactOrientations(samples: readonly AstrometricInstant[]): EarthOrienta
 }
 
 /** 'fast' mode: full nutation at the centre, its change across the night from IAU 2000B. */
-function fastOrientations(samples: readonly AstrometricInstant[], centre: TwoPartJulianDate): EarthOrientation[] {
+function fastOrientations(samples: readonly AstrometricInstant[], centre: TwoPartJulianDate, h: number): EarthOrientation[] {
   const full = nutation06a(centre);
   const complementary = equinoxComplementaryTerms(centre);
-  const centreShort = nutation00b(samples[2].tt);
+  nutation00bAtSteps(centre, h / 2, shortNutation);
   const orientations: EarthOrientation[] = [];
   for (let k = 0; k < samples.length; k++) {
-    const short = k === 2 ? centreShort : nutation00b(samples[k].tt);
-    const nutation = { dpsiRad: full.dpsiRad + short.dpsiRad - centreShort.dpsiRad, depsRad: full.depsRad + short.depsRad - centreShort.depsRad };
+    const nutation = {
+      dpsiRad: full.dpsiRad + shortNutation[2 * k] - shortNutation[4],
+      depsRad: full.depsRad + shortNutation[2 * k + 1] - shortNutation[5],
+    };
     orientations.push(iauEarthOrientation(samples[k], nutation, complementary));
   }
   return orientations;
 }
+
+/** IAU 2000B at the five samples (Δψ, Δε pairs), refilled by each fast context. */
+const shortNutation = new Float64Array(10);
 
 /** Quartics of the NPB matrix, of R3(λ)·W and of GAST through the five samples. */
 function fillRotations(c: Float64Array, orientations: readonly EarthOrientation[], longitudeRad: number, offsets: readonly number[]): void {

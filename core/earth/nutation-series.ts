@@ -143,3 +143,58 @@ export function nutation00b(tt: JulianDate): Nutation {
     depsRad: sums[1] * TENTH_MICROARCSEC + 0.388 * MAS,
   };
 }
+
+/** Rates of the linear 2000B Delaunay arguments (arcsec per Julian century), as in nutation00b. */
+const DELAUNAY_2000B_RATES_ARCSEC = [1717915923.2178, 129596581.0481, 1739527262.8478, 1602961601.209, -6962890.5431];
+const stepHarmonics = new FactoredHarmonics(LUNISOLAR_MULTIPLIERS.subarray(0, 5 * LUNISOLAR_2000B_TERM_COUNT), 5, 3);
+const stepArguments = new Float64Array(5);
+let cachedStepDays = NaN;
+const phaseCos = new Float64Array(5), phaseSin = new Float64Array(5);
+
+/**
+ * IAU 2000B at the five instants TT `centre` + k·`stepDays`, k = −2…2, written as Δψ, Δε pairs
+ * (radians) into out[0…9] — nutation00b at each instant, to a few ulp, for the cost of one:
+ * 2000B's Delaunay arguments are linear in time, so every term's phase at k steps is its phase at
+ * the centre turned k times by the term's fixed step rotation (kept from the previous call when
+ * `stepDays` is the same). For the per-night context's five samples.
+ */
+export function nutation00bAtSteps(centre: JulianDate, stepDays: number, out: Float64Array): void {
+  if (stepDays !== cachedStepDays) {
+    const stepCenturies = stepDays / 36525;
+    for (let k = 0; k < 5; k++) stepArguments[k] = ((DELAUNAY_2000B_RATES_ARCSEC[k] * stepCenturies) % 1296000) * ARCSEC;
+    stepHarmonics.evaluate(stepArguments, LUNISOLAR_2000B_TERM_COUNT);
+    cachedStepDays = stepDays;
+  }
+  const t = julianCenturiesSinceJ2000(centre);
+  delaunay[0] = ((485868.249036 + 1717915923.2178 * t) % 1296000) * ARCSEC;
+  delaunay[1] = ((1287104.79305 + 129596581.0481 * t) % 1296000) * ARCSEC;
+  delaunay[2] = ((335779.526232 + 1739527262.8478 * t) % 1296000) * ARCSEC;
+  delaunay[3] = ((1072260.70369 + 1602961601.209 * t) % 1296000) * ARCSEC;
+  delaunay[4] = ((450160.398036 - 6962890.5431 * t) % 1296000) * ARCSEC;
+  lunisolar2000bHarmonics.evaluate(delaunay, LUNISOLAR_2000B_TERM_COUNT);
+  const { sines, cosines } = lunisolar2000bHarmonics;
+  const { sines: stepSin, cosines: stepCos } = stepHarmonics;
+  const amplitudes = LUNISOLAR_AMPLITUDES;
+  const dt = stepDays / 36525;
+  const dpsi = [0, 0, 0, 0, 0], deps = [0, 0, 0, 0, 0];
+  for (let i = LUNISOLAR_2000B_TERM_COUNT - 1; i >= 0; i--) {
+    const c0 = cosines[i], s0 = sines[i], c1 = stepCos[i], s1 = stepSin[i];
+    const c2 = c1 * c1 - s1 * s1, s2 = 2 * c1 * s1;
+    // Phases at k = −2…2: centre turned by the step rotation and its square, or their conjugates.
+    phaseCos[0] = c0 * c2 + s0 * s2; phaseSin[0] = s0 * c2 - c0 * s2;
+    phaseCos[1] = c0 * c1 + s0 * s1; phaseSin[1] = s0 * c1 - c0 * s1;
+    phaseCos[2] = c0; phaseSin[2] = s0;
+    phaseCos[3] = c0 * c1 - s0 * s1; phaseSin[3] = s0 * c1 + c0 * s1;
+    phaseCos[4] = c0 * c2 - s0 * s2; phaseSin[4] = s0 * c2 + c0 * s2;
+    const a = 6 * i;
+    for (let k = 0; k < 5; k++) {
+      const tk = t + (k - 2) * dt, c = phaseCos[k], s = phaseSin[k];
+      dpsi[k] += (amplitudes[a] + amplitudes[a + 1] * tk) * s + amplitudes[a + 2] * c;
+      deps[k] += (amplitudes[a + 3] + amplitudes[a + 4] * tk) * c + amplitudes[a + 5] * s;
+    }
+  }
+  for (let k = 0; k < 5; k++) {
+    out[2 * k] = dpsi[k] * TENTH_MICROARCSEC - 0.135 * MAS;
+    out[2 * k + 1] = deps[k] * TENTH_MICROARCSEC + 0.388 * MAS;
+  }
+}
