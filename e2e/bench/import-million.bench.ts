@@ -71,7 +71,10 @@ async function importFile(page: Page, file: string | { name: string; text: strin
 const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
 const scaled = (ms: number) => (TRANSITS >= TARGET ? '' : `  → extrapolated to 1,000,000 (linear): ${seconds((ms * TARGET) / TRANSITS)}`);
 
+const loadAverage = () => os.loadavg().map((x) => x.toFixed(2)).join(', ');
+
 async function main(): Promise<void> {
+  const loadAtStart = loadAverage();
   const folder = await mkdtemp(path.join(os.tmpdir(), 'ml-bench-'));
   const logFile = path.join(folder, 'transits.csv');
   const server = await preview({ configFile: 'renderer/vite.config.ts', preview: { host: '127.0.0.1', port: PORT, strictPort: true, open: false } });
@@ -80,6 +83,11 @@ async function main(): Promise<void> {
     await writeTransitLog(logFile);
     const page = await (await browser.newContext({ acceptDownloads: true })).newPage();
     page.setDefaultTimeout(3_600_000);
+    // The worker's stage times (renderer/exchange/stageClock.ts) arrive as console debug lines.
+    const stageLines: string[] = [];
+    page.on('console', (message) => {
+      if (message.text().startsWith('[exchange]')) stageLines.push(message.text());
+    });
     await page.addInitScript(() => {
       const longest = { ms: 0, count: 0 };
       (window as unknown as { __longTasks: typeof longest }).__longTasks = longest;
@@ -143,6 +151,7 @@ async function main(): Promise<void> {
     const atEnd = await longTasks();
 
     console.log(`\nMeridian Ledger archive benchmark — ${TRANSITS.toLocaleString('en')} transits (${STARS} stars × ${NIGHTS} nights), headless Chromium, ${os.cpus().length} cores`);
+    console.log(`load average (1, 5, 15 min) at start ${loadAtStart}, at end ${loadAverage()}: on a shared machine every figure scales with it`);
     console.log(`the app said: ${importMessage}`);
     console.log(`import of the transit log (click → committed):  ${seconds(importMs)}   target < 60 s${scaled(importMs)}`);
     console.log(`longest main-thread task during the import:      ${afterImport.ms.toFixed(0)} ms (${afterImport.count} long tasks)   target ≤ 200 ms`);
@@ -151,6 +160,7 @@ async function main(): Promise<void> {
     console.log(`bundle restore, replacing the archive:           ${seconds(restoreMs)}   target < 60 s${scaled(restoreMs)}`);
     console.log(`longest main-thread task over the whole run:     ${atEnd.ms.toFixed(0)} ms (${atEnd.count} long tasks)`);
     if (TRANSITS < TARGET) console.log('Figures marked "extrapolated" are a linear scaling of the measured size, not measurements at 1,000,000.');
+    for (const line of stageLines.filter((l) => !/site\.json|stars\.csv/.test(l))) console.log(line);
   } finally {
     await browser.close();
     await new Promise<void>((resolve) => server.httpServer.close(() => resolve()));

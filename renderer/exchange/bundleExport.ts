@@ -3,6 +3,7 @@ import { TaskCancelledError, type TaskControl } from '../../core/task/task-contr
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
 import { gzipBytes } from './gzip.ts';
+import type { StageClock } from './stageClock.ts';
 
 /** Rows serialised between two yields to the host. */
 export const EXPORT_CHUNK_ROWS = 2_000;
@@ -22,9 +23,10 @@ export interface ExportedBundle {
  * out (they are not part of the archive yet). Serialising yields to the host every
  * EXPORT_CHUNK_ROWS rows for progress and cancel.
  */
-export async function exportBundle(database: ArchiveDatabase, control: TaskControl, createdUtc: string, producer: string): Promise<ExportedBundle> {
+export async function exportBundle(database: ArchiveDatabase, control: TaskControl, createdUtc: string, producer: string, clock?: StageClock): Promise<ExportedBundle> {
   const tables = database.tables;
   const snapshot = await database.transaction('r', tables, () => Promise.all(tables.map((t) => t.toArray())));
+  clock?.lap('read');
   const writer = new BundleWriter({ schemaVersion: ARCHIVE_SCHEMA_VERSION, createdUtc, producer });
   const parts: string[] = [writer.start()];
   const rowCounts: Record<string, number> = {};
@@ -45,7 +47,10 @@ export async function exportBundle(database: ArchiveDatabase, control: TaskContr
   }
   parts.push(writer.finish());
   control.reportProgress(total, total);
-  return { bytes: await gzipBytes(encodeUtf8(parts.join(''))), rowCounts };
+  clock?.lap('serialise');
+  const bytes = await gzipBytes(encodeUtf8(parts.join('')));
+  clock?.lap('encode and gzip');
+  return { bytes, rowCounts };
 }
 
 /** Records when the user last exported, for the reminder in the Exchange view. */

@@ -4,6 +4,7 @@ import type { ImportFileKind, ImportPlan } from './importReport.ts';
 import { planSiteImport } from './siteImportPlan.ts';
 import { planStarImport } from './starImportPlan.ts';
 import { planTransitImport } from './transitImportPlan.ts';
+import type { StageClock } from './stageClock.ts';
 
 export interface ImportFileRequest {
   readonly fileName: string;
@@ -22,11 +23,11 @@ export function guessImportKind(fileName: string, header: readonly string[] | nu
 }
 
 /** The validation pass: parses the file, checks it against the archive, plans the writes. */
-export function planImport(database: ArchiveDatabase, request: ImportFileRequest, nowUtc: string): Promise<ImportPlan> {
+export function planImport(database: ArchiveDatabase, request: ImportFileRequest, nowUtc: string, clock?: StageClock): Promise<ImportPlan> {
   if (request.kind === 'site-description') return planSiteImport(database, request.bytes, request.fileName, nowUtc);
   if (request.kind === 'star-list') return planStarImport(database, request.bytes, request.fileName, nowUtc);
   return planTransitImport(database, request.bytes, request.fileName, nowUtc, {
     defaultInstrumentId: request.defaultInstrumentId,
     columnMapping: request.columnMapping,
-  });
+  }, clock);
 }

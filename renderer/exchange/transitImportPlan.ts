@@ -7,6 +7,7 @@ import { applyColumnMapping, type ColumnMapping } from './columnMapping.ts';
 import { countsOf, type ImportPlan } from './importReport.ts';
 import { transitRecordFromRow, wireTimesMjd, zenithReadingsFor } from './transitRecordFromRow.ts';
 import { ArchivedNeighbours, loadArchivedNeighbours } from './archivedNeighbours.ts';
+import type { StageClock } from './stageClock.ts';
 
 export interface TransitImportOptions {
   /** Instrument for rows whose instrumentId cell is empty (or absent); null: such rows are rejected. */
@@ -55,18 +56,21 @@ async function loadLookups(database: ArchiveDatabase): Promise<Lookups> {
  * and local date, or created.
  */
 export async function planTransitImport(
-  database: ArchiveDatabase, bytes: Uint8Array, fileName: string, nowUtc: string, options: TransitImportOptions,
+  database: ArchiveDatabase, bytes: Uint8Array, fileName: string, nowUtc: string, options: TransitImportOptions, clock?: StageClock,
 ): Promise<ImportPlan> {
   const lookups = await loadLookups(database);
+  clock?.lap('load stars and instruments');
   const missingPrerequisites: string[] = [];
   if (lookups.starIdByCatalogueId.size === 0) missingPrerequisites.push('The archive holds no star list: import the star list (CSV) first, then this transit log.');
   if (lookups.instruments.size === 0) missingPrerequisites.push('The archive holds no site and instrument: import the site description (JSON) first, then this transit log.');
   const parsed = parseTransitLog(applyColumnMapping(bytes, options.columnMapping), { fileName, knownStarIds: new Set(lookups.starIdByCatalogueId.keys()) });
+  clock?.lap('decode and parse');
   const rejected: Rejection[] = [...parsed.rejected];
   const transits: TransitRecord[] = [];
   const newNights = new Map<string, NightRecord>();
   let duplicateCount = 0;
   const archived = missingPrerequisites.length === 0 ? await loadArchivedNeighbours(database, parsed.rows, lookups, options.defaultInstrumentId) : ArchivedNeighbours.EMPTY;
+  clock?.lap('load archived transits and nights');
   if (missingPrerequisites.length > 0) {
     for (const row of parsed.rows) rejected.push({ row: row.row, line: row.line, column: '', reason: `not imported: ${missingPrerequisites[0]}` });
   }
@@ -94,6 +98,7 @@ export async function planTransitImport(
   const usedNightIds = new Set(transits.map((t) => t.nightId));
   const created = { nights: [...newNights.values()].filter((n) => usedNightIds.has(n.id)), transits };
   const validRows = transits.length;
+  clock?.lap('plan rows');
   return {
     report: {
       fileName, kind: 'transit-log', totalRows: parsed.totalRows, validRows, rejectedRowCount: parsed.totalRows - validRows,

@@ -10,6 +10,7 @@ import type { ImportReport } from '../../exchange/importReport.ts';
 import { beginImport, writeImport, type WriteImportOptions } from '../../exchange/stagedWriter.ts';
 import { describeStorageError } from '../../exchange/describeStorageError.ts';
 import { tableCsvBytes } from '../../exchange/tableExports.ts';
+import { StageClock } from '../../exchange/stageClock.ts';
 import type { CsvTableName } from '../../../core/exchange-formats/archive-table-csv.ts';
 
 /** Hooks for the end-to-end tests only; the view sends them only when the page has `?test-hooks`. */
@@ -80,16 +81,21 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
     case 'exchange-validate':
       return { kind: request.kind, report: (await planImport(database, request.file, nowUtcIso())).report };
     case 'exchange-import': {
+      const clock = new StageClock(`import of ${request.file.fileName}`);
       const writeOptions = installTestHooks(database, request.testHooks);
-      const plan = await planImport(database, request.file, nowUtcIso());
+      const plan = await planImport(database, request.file, nowUtcIso(), clock);
       if (plan.report.missingPrerequisites.length > 0) throw new Error(plan.report.missingPrerequisites.join(' '));
       const importId = await beginImport(database, request.file.fileName, request.file.kind, nowUtcIso());
       const rowCounts = await writeImport(database, importId, plan.writes, control, nowUtcIso, writeOptions);
+      clock.lap('write and commit');
+      clock.log();
       return { kind: request.kind, report: plan.report, rowCounts };
     }
     case 'bundle-export': {
       const createdUtc = nowUtcIso();
-      const exported = await exportBundle(database, control, createdUtc, request.producer);
+      const clock = new StageClock('bundle export');
+      const exported = await exportBundle(database, control, createdUtc, request.producer, clock);
+      clock.log();
       await recordExport(database, createdUtc);
       return { kind: request.kind, bytes: exported.bytes, createdUtc, rowCounts: exported.rowCounts };
     }
@@ -98,8 +104,15 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
       const { createdUtc, producer, schemaVersion } = bundle.header;
       return { kind: request.kind, createdUtc, producer, schemaVersion, tables: bundle.manifest.tables.map((t) => ({ name: t.name, rows: t.rows })), archiveRows: await countArchiveRows(database) };
     }
-    case 'bundle-restore':
-      return { kind: request.kind, rowCounts: await restoreBundle(database, await verifyBundle(database, request.bytes, control), request.mode) };
+    case 'bundle-restore': {
+      const clock = new StageClock('bundle restore');
+      const verified = await verifyBundle(database, request.bytes, control);
+      clock.lap('unzip, read and verify');
+      const rowCounts = await restoreBundle(database, verified, request.mode);
+      clock.lap('write');
+      clock.log();
+      return { kind: request.kind, rowCounts };
+    }
     case 'iers-import':
       return runIersImport(database, request.fileName, request.bytes);
     case 'table-export':
