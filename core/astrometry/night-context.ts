@@ -9,6 +9,7 @@ import { iauEarthOrientation } from './iau-earth-orientation.ts';
 import type { EarthOrientation } from './earth-orientation.ts';
 import type { AstrometricInstant, TwoPartJulianDate } from './instant.ts';
 import { moonGeocentricAu } from './moon-low-precision.ts';
+import { nightOrientations } from './night-orientation.ts';
 import { refractionConstants } from './refraction-constants.ts';
 import { checkSite, type Site, siteItrsPositionM } from './site.ts';
 import type { Weather } from './weather.ts';
@@ -83,7 +84,7 @@ export function createNightContext(options: NightContextOptions): NightContext {
   const exact = options.mode === 'exact';
   if (exact) fillEarthFromSamples(c, [samples[0].tt, samples[2].tt, samples[4].tt], h);
   else fillEarth(c, centre, days);
-  const orientations = exact ? exactOrientations(samples) : fastOrientations(samples, centre, h);
+  const orientations = exact ? exactOrientations(samples) : fastOrientations(samples, centre, offsets);
   fillRotations(c, orientations, options.site.longitudeRad, offsets);
   c[NC_INVERSE_HALF_WIDTH] = 1 / h;
   fillSite(c, options.site, orientations[1].polarMotion);
@@ -104,19 +105,17 @@ function exactOrientations(samples: readonly AstrometricInstant[]): EarthOrienta
 }
 
 /** 'fast' mode: full nutation at the centre, its change across the night from IAU 2000B. */
-function fastOrientations(samples: readonly AstrometricInstant[], centre: TwoPartJulianDate, h: number): EarthOrientation[] {
+function fastOrientations(samples: readonly AstrometricInstant[], centre: TwoPartJulianDate, offsets: readonly number[]): EarthOrientation[] {
   const full = nutation06a(centre);
-  const complementary = equinoxComplementaryTerms(centre);
-  nutation00bAtSteps(centre, h / 2, shortNutation);
-  const orientations: EarthOrientation[] = [];
+  nutation00bAtSteps(centre, offsets[3], shortNutation);
+  const nutations = [];
   for (let k = 0; k < samples.length; k++) {
-    const nutation = {
+    nutations.push({
       dpsiRad: full.dpsiRad + shortNutation[2 * k] - shortNutation[4],
       depsRad: full.depsRad + shortNutation[2 * k + 1] - shortNutation[5],
-    };
-    orientations.push(iauEarthOrientation(samples[k], nutation, complementary));
+    });
   }
-  return orientations;
+  return nightOrientations(samples, offsets, nutations, equinoxComplementaryTerms(centre));
 }
 
 /** IAU 2000B at the five samples (Δψ, Δε pairs), refilled by each fast context. */
