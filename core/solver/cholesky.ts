@@ -45,29 +45,36 @@ export function choleskySolveInPlace(factor: Float64Array, n: number, b: Float64
 
 /**
  * The full symmetric inverse (L·Lᵀ)⁻¹ = L⁻ᵀ·L⁻¹ written into `inverse` (n×n row-major), given
- * the factor from choleskyInPlace. Cost n³/2 multiply-adds after forming L⁻¹ (n³/6).
- * `scratch` (≥ n² elements) avoids an allocation when called in a loop.
+ * the factor from choleskyInPlace. Cost n³/6 for L⁻¹ plus n³/6 for the product, both arranged
+ * to run along rows (row k of L⁻¹ scaled into the rows ≤ k), so memory is read in order even
+ * when the matrix is far larger than the cache. `scratch` (≥ n² elements) avoids an allocation.
  */
 export function choleskyInverse(factor: Float64Array, n: number, inverse: Float64Array, scratch?: Float64Array): void {
-  // L⁻¹ by forward substitution, column by column, kept in a scratch lower triangle.
+  // L⁻¹ row by row: row i = −(Σ_{k<i} L_ik·(row k of L⁻¹)) / L_ii, and 1/L_ii on the diagonal.
   const lInv = scratch && scratch.length >= n * n ? scratch : new Float64Array(n * n);
   lInv.fill(0, 0, n * n);
-  for (let j = 0; j < n; j++) {
-    lInv[j * n + j] = 1 / factor[j * n + j];
-    for (let i = j + 1; i < n; i++) {
-      let sum = 0;
-      const row = i * n;
-      for (let k = j; k < i; k++) sum -= factor[row + k] * lInv[k * n + j];
-      lInv[row + j] = sum / factor[row + i];
-    }
-  }
-  // (L⁻ᵀL⁻¹)_ij = Σ_{k ≥ max(i,j)} L⁻¹_ki L⁻¹_kj
   for (let i = 0; i < n; i++) {
-    for (let j = 0; j <= i; j++) {
-      let sum = 0;
-      for (let k = i; k < n; k++) sum += lInv[k * n + i] * lInv[k * n + j];
-      inverse[i * n + j] = sum;
-      inverse[j * n + i] = sum;
+    const rowI = i * n;
+    for (let k = 0; k < i; k++) {
+      const lik = factor[rowI + k];
+      if (lik === 0) continue;
+      const rowK = k * n;
+      for (let j = 0; j <= k; j++) lInv[rowI + j] += lik * lInv[rowK + j];
+    }
+    const diagonal = factor[rowI + i];
+    for (let j = 0; j < i; j++) lInv[rowI + j] = -lInv[rowI + j] / diagonal;
+    lInv[rowI + i] = 1 / diagonal;
+  }
+  // (L⁻ᵀL⁻¹)_ij = Σ_k L⁻¹_ki·L⁻¹_kj: each row k of L⁻¹ adds L⁻¹_ki·(row k) to row i, j ≤ i ≤ k.
+  inverse.fill(0, 0, n * n);
+  for (let k = 0; k < n; k++) {
+    const rowK = k * n;
+    for (let i = 0; i <= k; i++) {
+      const a = lInv[rowK + i];
+      if (a === 0) continue;
+      const rowI = i * n;
+      for (let j = 0; j <= i; j++) inverse[rowI + j] += a * lInv[rowK + j];
     }
   }
+  for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) inverse[j * n + i] = inverse[i * n + j];
 }

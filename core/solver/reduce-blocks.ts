@@ -74,13 +74,17 @@ function subtractSweep(ws: BlockWorkspace, i: number, a: number, count: number):
   for (let j = i; j < t; j++) Ntt[rowI + j] -= n0 * G[r0 + j] + n1 * G[r1 + j] + n2 * G[r2 + j] + n3 * G[r3 + j];
 }
 
-/** Adds the block's reduced N_tt (upper triangle) and b_t into the global sums; touched is ascending, so gi < gj for j > i. */
-function scatter(ws: BlockWorkspace, n: number, normal: Float64Array, rhs: Float64Array): void {
+/**
+ * Adds the block's reduced N_tt (upper triangle) and b_t into the global sums. The global upper
+ * triangle is packed by rows (row g at rowStart[g], columns g…n−1: half the memory of the full
+ * matrix, so more of it stays in cache); touched is ascending, so gi ≤ gj for j ≥ i.
+ */
+function scatter(ws: BlockWorkspace, rowStart: Int32Array, normal: Float64Array, rhs: Float64Array): void {
   const t = ws.touchedCount;
   const Ntt = ws.normalTouched;
   const touched = ws.touched;
   for (let i = 0; i < t; i++) {
-    const base = touched[i] * n;
+    const base = rowStart[touched[i]] - touched[i];
     rhs[touched[i]] += ws.rhsTouched[i];
     const rowI = i * t;
     for (let j = i; j < t; j++) normal[base + touched[j]] += Ntt[rowI + j];
@@ -119,7 +123,9 @@ export function reduceBlocks(
 ): ReducedSystem {
   const n = prep.globalCount;
   const m = prep.localConstraints.length;
-  const normalSum = new CompensatedArraySum(n * n);
+  const rowStart = new Int32Array(n + 1);
+  for (let g = 0; g < n; g++) rowStart[g + 1] = rowStart[g] + n - g;
+  const normalSum = new CompensatedArraySum(rowStart[n]);
   const rhsSum = new CompensatedArraySum(n);
   const B = new Float64Array(m * n);
   const E = new Float64Array(m * m);
@@ -134,7 +140,7 @@ export function reduceBlocks(
       singularBlocks.push({ block, vectors: ws.dropped.map((x) => x.vector), relativeEigenvalues: ws.dropped.map((x) => x.relativeEigenvalue) });
     }
     subtractSchur(ws);
-    scatter(ws, n, normalSum.chunk, rhsSum.chunk);
+    scatter(ws, rowStart, normalSum.chunk, rhsSum.chunk);
     if (ws.constraintCount > 0) addConstraintTerms(ws, m, n, B, E, d);
     if (block % BLOCKS_PER_CHUNK === BLOCKS_PER_CHUNK - 1) {
       normalSum.flush();
@@ -142,7 +148,14 @@ export function reduceBlocks(
     }
   }
   onBlock(total, total);
-  const normal = normalSum.result();
-  for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) normal[i * n + j] = normal[j * n + i];
+  const packed = normalSum.result();
+  const normal = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) {
+    for (let j = i; j < n; j++) {
+      const value = packed[rowStart[i] + j - i];
+      normal[i * n + j] = value;
+      normal[j * n + i] = value;
+    }
+  }
   return { n, normal, rhs: rhsSum.result(), constraintCount: m, coupling: B, constraintNormal: E, constraintRhs: d, singularBlocks };
 }

@@ -17,7 +17,7 @@ export interface SymmetricEigen {
 
 /**
  * Householder reduction of the symmetric `a` (overwritten) to tridiagonal (d, e). With `qt` it
- * accumulates Qᵀ (A = Q·T·Qᵀ); with `reflectors` it stores reflector k's unit vector v in row k
+ * accumulates Qᵀ (A = Q·T·Qᵀ); only the lower triangle of `a` is read and kept up to date; with `reflectors` it stores reflector k's unit vector v in row k
  * (zero rows for skipped steps), so that Q·y = H₀·H₁·…·H_{n−3}·y can be applied later.
  */
 export function tridiagonalize(
@@ -37,23 +37,34 @@ export function tridiagonalize(
     for (let i = 0; i <= k; i++) v[i] = 0;
     v[k + 1] = (x0 - alpha) * scale;
     for (let i = k + 2; i < n; i++) v[i] = a[i * n + k] * scale;
-    // A ← H A H with H = I − 2vvᵀ: p = A v, K = vᵀp, w = 2p − 2Kv, A −= v wᵀ + w vᵀ.
-    let kappa = 0;
-    for (let i = k; i < n; i++) {
-      let sum = 0;
+    // A ← H A H with H = I − 2vvᵀ: p = A v, K = vᵀp, w = 2p − 2Kv, A −= v wᵀ + w vᵀ, on the
+    // lower triangle of the trailing block only (rows and columns k+1…; v is zero above): each
+    // element (i, j < i) read once serves p_i and p_j, and the update touches half the matrix.
+    for (let i = k + 1; i < n; i++) p[i] = 0;
+    for (let i = k + 1; i < n; i++) {
       const row = i * n;
-      for (let j = k + 1; j < n; j++) sum += a[row + j] * v[j];
-      p[i] = sum;
-      kappa += v[i] * sum;
+      const vi = v[i];
+      let sum = a[row + i] * vi;
+      for (let j = k + 1; j < i; j++) {
+        const aij = a[row + j];
+        sum += aij * v[j];
+        p[j] += aij * vi;
+      }
+      p[i] += sum;
     }
+    let kappa = 0;
+    for (let i = k + 1; i < n; i++) kappa += v[i] * p[i];
     if (reflectors) for (let i = k + 1; i < n; i++) reflectors[k * n + i] = v[i];
-    for (let i = k; i < n; i++) p[i] = 2 * p[i] - 2 * kappa * v[i];
-    for (let i = k; i < n; i++) {
+    for (let i = k + 1; i < n; i++) p[i] = 2 * p[i] - 2 * kappa * v[i];
+    for (let i = k + 1; i < n; i++) {
       const row = i * n;
       const vi = v[i];
       const pi = p[i];
-      for (let j = k; j < n; j++) a[row + j] -= vi * p[j] + pi * v[j];
+      for (let j = k + 1; j <= i; j++) a[row + j] -= vi * p[j] + pi * v[j];
     }
+    // Column k below the diagonal becomes (α, 0, …, 0): what H does to it by construction.
+    a[(k + 1) * n + k] = alpha;
+    for (let i = k + 2; i < n; i++) a[i * n + k] = 0;
     // Qᵀ ← H Qᵀ: rows k+1.. of Qᵀ change by −2 v (vᵀ Qᵀ).
     if (!qt) continue;
     for (let j = 0; j < n; j++) p[j] = 0;
