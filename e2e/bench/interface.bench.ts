@@ -1,7 +1,8 @@
 // `npm run bench:interface`: how the interface responds with a large archive, in headless Chromium,
 // through the built app. Prints figures (median, p95) against the targets with the machine's load;
 // asserts none. BENCH_TRANSITS sets the archive size (default 1,000,000), BENCH_RESIDUALS the
-// residual plot's size (default 200,000), BENCH_PORT the preview port (default 4435).
+// residual plot's size (default 200,000), BENCH_PORT the preview port (default 4435), BENCH_PARTS
+// the timed parts (first-view, zoom, typing; all by default).
 // The archive is written straight into IndexedDB (the app's own schema, records cloned from one
 // the app imported itself), outside every timed part. Invented scenario: no real site or star.
 import { spawnSync } from 'node:child_process';
@@ -20,6 +21,8 @@ const BASE = `http://127.0.0.1:${PORT}/`;
 const LAUNCHES = 5;
 const ZOOMS = 30;
 const KEYSTROKES = 30;
+// BENCH_PARTS picks the timed parts (comma-separated: first-view, zoom, typing); all by default.
+const PARTS = new Set((process.env.BENCH_PARTS ?? 'first-view,zoom,typing').split(',').map((p) => p.trim()));
 
 interface Summary { median: number; p95: number; min: number; max: number; n: number }
 function summary(values: readonly number[]): Summary {
@@ -59,6 +62,7 @@ async function firstViewInteractive(context: BrowserContext, hash: string, use: 
     const answered = await use(page);
     const domContentLoaded = await page.evaluate(() => (performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming).domContentLoadedEventEnd);
     runs.push({ ready: Number(await page.evaluate(() => (window as unknown as { __ready?: number }).__ready ?? NaN)), answered, domContentLoaded });
+    console.log(`   (${hash} launch ${k + 1} of ${LAUNCHES}: answered at ${answered.toFixed(0)} ms)`);
     await page.close();
   }
   return runs;
@@ -87,16 +91,16 @@ async function archiveAnswers(page: Page): Promise<number> {
 }
 
 /** Wheel zooms over the residual plot, alternately in and out: the plot's own draw measure and wheel → next frame painted. */
-async function zoomTimes(page: Page): Promise<{ draw: number[]; frame: number[]; points: number[] }> {
+async function zoomTimes(page: Page): Promise<{ draw: number[]; frame: number[]; points: number[]; plots: string[] }> {
   const plot = page.getByTestId('plot-residuals-time');
   await plot.scrollIntoViewIfNeeded();
   await page.waitForFunction((n) => Number(document.querySelector('[data-testid="plot-residuals-time"]')?.getAttribute('data-points')) >= n, RESIDUALS, { timeout: 120_000 });
   return page.evaluate(async (zooms) => {
     const stage = document.querySelector('[data-testid="plot-residuals-time"] [role="slider"]') as HTMLElement;
     const box = stage.getBoundingClientRect();
-    const draws: { duration: number; points: number }[] = [];
+    const draws: { duration: number; points: number; plot: string }[] = [];
     new PerformanceObserver((list) => {
-      for (const e of list.getEntries()) draws.push({ duration: e.duration, points: ((e as PerformanceMeasure).detail as { points: number }).points });
+      for (const e of list.getEntries()) draws.push({ duration: e.duration, ...((e as PerformanceMeasure).detail as { points: number; plot: string }) });
     }).observe({ type: 'measure' });
     const painted = () => new Promise<number>((resolve) => requestAnimationFrame(() => setTimeout(() => resolve(performance.now()), 0)));
     await painted();
@@ -108,7 +112,7 @@ async function zoomTimes(page: Page): Promise<{ draw: number[]; frame: number[];
       await new Promise((resolve) => setTimeout(resolve, 30));
     }
     await new Promise((resolve) => setTimeout(resolve, 50));
-    return { draw: draws.map((d) => d.duration), frame, points: draws.map((d) => d.points) };
+    return { draw: draws.map((d) => d.duration), frame, points: draws.map((d) => d.points), plots: draws.map((d) => d.plot) };
   }, ZOOMS);
 }
 
@@ -171,35 +175,41 @@ async function main(): Promise<void> {
     console.log(`saved reduction with ${seeded.toLocaleString('en')} residuals seeded (untimed set-up)`);
     await page.close();
 
-    const tonight = await firstViewInteractive(context, '#/tonight', tonightAnswers);
-    const archive = await firstViewInteractive(context, '#/archive', archiveAnswers);
-    console.log(`\nload average before the timed parts: ${load()}`);
-    const report = (name: string, runs: { ready: number; answered: number; domContentLoaded: number }[]) => {
-      console.log(`first view ${name}, navigation start → control answered: ${ms(summary(runs.map((r) => r.answered)))}   target < 1500 ms`);
-      console.log(`   of which: DOMContentLoaded ${ms(summary(runs.map((r) => r.domContentLoaded)))}; control present ${ms(summary(runs.map((r) => r.ready)))}`);
-    };
-    report('Tonight (the default view)', tonight);
-    report('Archive (every night marked)', archive);
-
-    const signatures = await context.newPage();
-    signatures.setDefaultTimeout(600_000);
-    await signatures.goto(`${BASE}?no-demo#/signatures`);
-    const zoom = await zoomTimes(signatures);
-    console.log(`residual plot of ${RESIDUALS.toLocaleString('en')} points, wheel zoom (in and out, ${ZOOMS} times), load ${load()}:`);
-    console.log(`   the plot's draw (performance measure 'signature-plot-draw'): ${ms(summary(zoom.draw))}   target < 50 ms; points drawn ${summary(zoom.points).min}…${summary(zoom.points).max}`);
-    console.log(`   wheel event → next frame painted:                            ${ms(summary(zoom.frame))}   target < 50 ms (frames every ~16.7 ms)`);
-    await signatures.close();
-
-    const log = await context.newPage();
-    log.setDefaultTimeout(600_000);
-    await log.goto(`${BASE}?no-demo#/tonight`);
-    const typing = await typingTimes(log);
-    console.log(`Tonight, typing a wire time (${KEYSTROKES} keystrokes), load ${load()}:`);
-    console.log(`   keydown → O−C text changed:     ${ms(summary(typing.toText))}   target < 50 ms`);
-    console.log(`   keydown → next frame painted:    ${ms(summary(typing.toFrame))}`);
+    if (PARTS.has('first-view')) {
+      const tonight = await firstViewInteractive(context, '#/tonight', tonightAnswers);
+      const archive = await firstViewInteractive(context, '#/archive', archiveAnswers);
+      console.log(`\nload average after the first views: ${load()}`);
+      const report = (name: string, runs: { ready: number; answered: number; domContentLoaded: number }[]) => {
+        console.log(`first view ${name}, navigation start → control answered: ${ms(summary(runs.map((r) => r.answered)))}   target < 1500 ms`);
+        console.log(`   of which: DOMContentLoaded ${ms(summary(runs.map((r) => r.domContentLoaded)))}; control present ${ms(summary(runs.map((r) => r.ready)))}`);
+      };
+      report('Tonight (the default view)', tonight);
+      report('Archive (every night marked)', archive);
+    }
+    if (PARTS.has('zoom')) {
+      const signatures = await context.newPage();
+      signatures.setDefaultTimeout(600_000);
+      await signatures.goto(`${BASE}?no-demo#/signatures`);
+      const zoom = await zoomTimes(signatures);
+      console.log(`residual plot of ${RESIDUALS.toLocaleString('en')} points, wheel zoom (in and out, ${ZOOMS} times), load ${load()}:`);
+      console.log(`   the plot's draw (performance measure 'signature-plot-draw'): ${ms(summary(zoom.draw))}   target < 50 ms; points drawn ${summary(zoom.points).min}…${summary(zoom.points).max}`);
+      const perPlot = [...new Set(zoom.plots)].map((id) => `${id} ×${zoom.plots.filter((p) => p === id).length}`).join(', ');
+      console.log(`   redraws during the ${ZOOMS} zooms: ${perPlot}`);
+      console.log(`   wheel event → next frame painted:                            ${ms(summary(zoom.frame))}   target < 50 ms (frames every ~16.7 ms)`);
+      await signatures.close();
+    }
+    if (PARTS.has('typing')) {
+      const log = await context.newPage();
+      log.setDefaultTimeout(600_000);
+      await log.goto(`${BASE}?no-demo#/tonight`);
+      const typing = await typingTimes(log);
+      console.log(`Tonight, typing a wire time (${KEYSTROKES} keystrokes), load ${load()}:`);
+      console.log(`   keydown → O−C text changed:     ${ms(summary(typing.toText))}   target < 50 ms`);
+      console.log(`   keydown → next frame painted:    ${ms(summary(typing.toFrame))}`);
+      await log.close();
+    }
     console.log(`\nload average at the end: ${load()}`);
     if (TRANSITS < 1_000_000) console.log(`(BENCH_TRANSITS=${TRANSITS}: a smaller archive than the 1,000,000 of the targets)`);
-    await log.close();
   } finally {
     await browser.close();
     await new Promise<void>((resolve) => server.httpServer.close(() => resolve()));
