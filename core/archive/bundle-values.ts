@@ -27,9 +27,32 @@ function decodeValue(_key: string, value: unknown): unknown {
   return value;
 }
 
-/** One row as one line of JSON (no newline inside: JSON.stringify escapes control characters). */
+/**
+ * True when `value` holds −0, NaN or ±Infinity anywhere JSON.stringify would look, or anything
+ * other than plain objects, arrays and primitives (then the replacer path decides, as before).
+ */
+function mayNeedReplacer(value: unknown): boolean {
+  if (typeof value === 'number') return !Number.isFinite(value) || Object.is(value, -0);
+  if (typeof value !== 'object' || value === null) return false;
+  if (Array.isArray(value)) {
+    for (const item of value) if (mayNeedReplacer(item)) return true;
+    return false;
+  }
+  const prototype: unknown = Object.getPrototypeOf(value);
+  if (prototype !== Object.prototype && prototype !== null) return true;
+  for (const key in value) {
+    if (Object.hasOwn(value, key) && mayNeedReplacer((value as Record<string, unknown>)[key])) return true;
+  }
+  return false;
+}
+
+/**
+ * One row as one line of JSON (no newline inside: JSON.stringify escapes control characters).
+ * The replacer only rewrites special numbers, so a row without any is written by plain
+ * JSON.stringify, to the same text (the replacer, called for every value, was most of the cost).
+ */
 export function rowToJsonLine(row: unknown): string {
-  return JSON.stringify(row, encodeValue);
+  return mayNeedReplacer(row) ? JSON.stringify(row, encodeValue) : JSON.stringify(row);
 }
 
 /**

@@ -32,10 +32,26 @@ export class BundleWriter {
   }
 
   row(row: unknown): string {
+    const line = this.emit(this.rowLine(row));
+    this.current?.hash.update(encodeUtf8(line));
+    return line;
+  }
+
+  /**
+   * The same line as `row`, as its UTF-8 bytes (which are also what the checksum reads): a caller
+   * that collects bytes never needs the whole bundle as one string (at a million rows it would
+   * pass the longest string a JavaScript engine holds, about 2^29 characters in V8).
+   */
+  rowBytes(row: unknown): Uint8Array {
+    const bytes = encodeUtf8(this.emit(this.rowLine(row)));
+    this.current?.hash.update(bytes);
+    return bytes;
+  }
+
+  private rowLine(row: unknown): string {
     this.requireOpen();
     if (this.current === null) throw new BundleError('BundleWriter.row: call beginTable first', null);
-    const line = this.emit(rowToJsonLine(row));
-    this.current.hash.update(encodeUtf8(line));
+    const line = rowToJsonLine(row);
     this.current.rows++;
     return line;
   }

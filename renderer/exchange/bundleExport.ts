@@ -2,7 +2,7 @@ import { BundleWriter } from '../../core/archive/bundle-writer.ts';
 import { TaskCancelledError, type TaskControl } from '../../core/task/task-control.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
-import { gzipBytes } from './gzip.ts';
+import { gzipBlocks } from './gzip.ts';
 import type { StageClock } from './stageClock.ts';
 
 /** Rows serialised between two yields to the host. */
@@ -28,16 +28,19 @@ export async function exportBundle(database: ArchiveDatabase, control: TaskContr
   const snapshot = await database.transaction('r', tables, () => Promise.all(tables.map((t) => t.toArray())));
   clock?.lap('read');
   const writer = new BundleWriter({ schemaVersion: ARCHIVE_SCHEMA_VERSION, createdUtc, producer });
-  const parts: string[] = [writer.start()];
+  // UTF-8 bytes line by line (never the whole bundle as one string: a million rows would pass
+  // the longest string the engine holds), gathered into blocks for the compressor.
+  const blocks = new ByteBlocks();
+  blocks.push(encodeUtf8(writer.start()));
   const rowCounts: Record<string, number> = {};
   const total = snapshot.reduce((sum, rows) => sum + rows.length, 0);
   let done = 0;
   for (const [k, table] of tables.entries()) {
-    parts.push(writer.beginTable(table.name));
+    blocks.push(encodeUtf8(writer.beginTable(table.name)));
     const rows = snapshot[k].filter((row) => (row as { visibility?: string }).visibility !== 'staged');
     rowCounts[table.name] = rows.length;
     for (const row of rows) {
-      parts.push(writer.row(row));
+      blocks.push(writer.rowBytes(row));
       if (++done % EXPORT_CHUNK_ROWS === 0) {
         if (control.cancellation.isCancelled) throw new TaskCancelledError('the bundle export', done);
         control.reportProgress(done, total);
@@ -45,12 +48,35 @@ export async function exportBundle(database: ArchiveDatabase, control: TaskContr
       }
     }
   }
-  parts.push(writer.finish());
+  blocks.push(encodeUtf8(writer.finish()));
   control.reportProgress(total, total);
   clock?.lap('serialise');
-  const bytes = await gzipBytes(encodeUtf8(parts.join('')));
-  clock?.lap('encode and gzip');
+  const bytes = await gzipBlocks(blocks.finish());
+  clock?.lap('gzip');
   return { bytes, rowCounts };
+}
+
+/** Small byte arrays gathered into blocks of about BLOCK_BYTES (a Blob of a million parts is slow to build). */
+class ByteBlocks {
+  static readonly BLOCK_BYTES = 4 << 20;
+  readonly #blocks: Uint8Array[] = [];
+  #current = new Uint8Array(ByteBlocks.BLOCK_BYTES);
+  #used = 0;
+
+  push(bytes: Uint8Array): void {
+    if (this.#used + bytes.length > this.#current.length) {
+      this.#blocks.push(this.#current.subarray(0, this.#used));
+      this.#current = new Uint8Array(Math.max(ByteBlocks.BLOCK_BYTES, bytes.length));
+      this.#used = 0;
+    }
+    this.#current.set(bytes, this.#used);
+    this.#used += bytes.length;
+  }
+
+  finish(): Uint8Array[] {
+    this.#blocks.push(this.#current.subarray(0, this.#used));
+    return this.#blocks;
+  }
 }
 
 /** Records when the user last exported, for the reminder in the Exchange view. */

@@ -6,6 +6,12 @@ async function throughStream(bytes: Uint8Array, stream: CompressionStream | Deco
   return new Uint8Array(await response.arrayBuffer());
 }
 
+/** gzip (RFC 1952) of the concatenation of `blocks`, without first joining them into one array. */
+export async function gzipBlocks(blocks: readonly Uint8Array[]): Promise<Uint8Array> {
+  const response = new Response(new Blob(blocks as Uint8Array<ArrayBuffer>[]).stream().pipeThrough(new CompressionStream('gzip')));
+  return new Uint8Array(await response.arrayBuffer());
+}
+
 /** gzip (RFC 1952) of `bytes`. */
 export function gzipBytes(bytes: Uint8Array): Promise<Uint8Array> {
   return throughStream(bytes, new CompressionStream('gzip'));
