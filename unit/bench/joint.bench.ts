@@ -24,6 +24,7 @@ import { predictTransit } from '../../core/astrometry/transit.ts';
 import { catalogueStarOf, NightPredictions } from '../../core/reduction/star-predictions.ts';
 import type { SolveInputs } from '../../core/joint/solve-inputs.ts';
 import { utcCountS } from '../../core/formats/utc-instant.ts';
+import { loadavg } from 'node:os';
 
 interface Size { readonly label: string; readonly request: SimulationRequest }
 
@@ -32,11 +33,25 @@ const SIZES: readonly Size[] = [
   { label: '100k', request: { seed: 7, years: 10, starCount: 120, nightsPerYearTarget: 250, blunderRate: 0.002 } },
 ];
 
-interface Timing { transits: number; nights: number; parseS: number; nightlyS: number; factorsS: number; buildS: number; solveS: number; passes: number; outputsS: number; totalS: number; peakRssMb: number }
+interface Timing {
+  transits: number; nights: number; parseS: number; nightlyS: number; factorsS: number; buildS: number; solveS: number; passes: number; outputsS: number; totalS: number; peakRssMb: number;
+  /** CPU seconds (process.cpuUsage, GC threads included) of the same stages: on a loaded machine the wall time is the scheduler's. */
+  cpu: { parse: number; nightly: number; factors: number; build: number; solve: number; solverPhases: string };
+}
 
+function cpuSeconds(): number {
+  const usage = process.cpuUsage();
+  return (usage.user + usage.system) / 1e6;
+}
+
+let lastCpuS = 0;
+
+/** Runs `work`; returns its value and wall seconds, and leaves its CPU seconds in lastCpuS. */
 async function timed<T>(work: () => T | Promise<T>): Promise<[T, number]> {
   const start = performance.now();
+  const cpuStart = cpuSeconds();
   const value = await work();
+  lastCpuS = cpuSeconds() - cpuStart;
   return [value, (performance.now() - start) / 1000];
 }
 
@@ -45,22 +60,39 @@ async function measure(size: Size): Promise<Timing> {
   const files = encodeFolderFiles(writeArchiveFolder(archive, archive.truth));
   const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS);
   const [{ inputs }, parseS] = await timed(() => readSolveInputs(files));
+  const parseCpu = lastCpuS;
   if (inputs === null) throw new Error(`${size.label}: the simulated folder is not readable`);
   if (size.label === '10k') console.log(`   ${comparePredictions(inputs, timeScale, 60)}`);
   const model: JointModel = { ...DEFAULT_JOINT_MODEL, flexureAprioriArcsec: 0 };
   const [reduced, nightlyS] = await timed(() => reduceArchive(inputs, model, timeScale, UNCONTROLLED));
+  const nightlyCpu = lastCpuS;
   const s = inputs.site.site;
   const site: Site = { latitudeRad: s.latitudeDeg * DEG, longitudeRad: s.longitudeDeg * DEG, heightM: s.heightM };
   const [, factorsS] = await timed(() => fillObservationFactors(reduced.observations, inputs.stars, site, timeScale));
+  const factorsCpu = lastCpuS;
   const prepared = { stars: inputs.stars, nights: reduced.nights, observations: reduced.observations, skipped: reduced.skipped };
   const [{ problem }, buildS] = await timed(() => buildJointProblem(model, prepared.stars, prepared.nights, prepared.observations));
-  const [solution, solveS] = await timed(() => jointSolve(problem, { robust: { maxIterations: model.robustIterations } }));
+  const buildCpu = lastCpuS;
+  const phaseCpu = new Map<string, number>();
+  let phase = '';
+  let phaseStart = cpuSeconds();
+  const onProgress = ({ phase: next }: { phase: string }): void => {
+    const now = cpuSeconds();
+    phaseCpu.set(phase, (phaseCpu.get(phase) ?? 0) + now - phaseStart);
+    phase = next;
+    phaseStart = now;
+  };
+  const [solution, solveS] = await timed(() => jointSolve(problem, { robust: { maxIterations: model.robustIterations }, onProgress }));
+  const solveCpu = lastCpuS;
+  onProgress({ phase: '' });
+  const solverPhases = [...phaseCpu].filter(([name]) => name !== '').map(([name, t]) => `${name} ${t.toFixed(2)}`).join(', ');
   // solvePrepared = build + solve + outputs (correlation, instrument series, signatures).
   const [, wholeS] = await timed(() => solvePrepared(prepared, model, UNCONTROLLED));
   const outputsS = Math.max(0, wholeS - buildS - solveS);
   return {
     transits: reduced.observations.length, nights: reduced.nights.length, parseS, nightlyS, factorsS, buildS, solveS, passes: solution.iterations,
     outputsS, totalS: parseS + nightlyS + factorsS + wholeS, peakRssMb: process.resourceUsage().maxRSS / 1024,
+    cpu: { parse: parseCpu, nightly: nightlyCpu, factors: factorsCpu, build: buildCpu, solve: solveCpu, solverPhases },
   };
 }
 
@@ -103,7 +135,9 @@ export async function run(): Promise<void> {
     const t = await measure(size);
     results.set(size.label, t);
     console.log(`   ${size.label.padEnd(5)} ${t.transits} transits, ${t.nights} nights: parse ${t.parseS.toFixed(2)} s, nightly reductions ${t.nightlyS.toFixed(2)} s, factors ${t.factorsS.toFixed(2)} s, `
-      + `problem ${t.buildS.toFixed(2)} s, solver ${t.solveS.toFixed(2)} s (${t.passes} passes), outputs ${t.outputsS.toFixed(2)} s; total ${t.totalS.toFixed(2)} s; peak RSS ${t.peakRssMb.toFixed(0)} MB`);
+      + `problem ${t.buildS.toFixed(2)} s, solver ${t.solveS.toFixed(2)} s (${t.passes} passes), outputs ${t.outputsS.toFixed(2)} s; total ${t.totalS.toFixed(2)} s; peak RSS ${t.peakRssMb.toFixed(0)} MB`
+      + `\n         CPU s: parse ${t.cpu.parse.toFixed(2)}, nightly ${t.cpu.nightly.toFixed(2)}, factors ${t.cpu.factors.toFixed(2)}, problem ${t.cpu.build.toFixed(2)}, solver ${t.cpu.solve.toFixed(2)}`
+      + ` (${t.cpu.solverPhases}); load ${loadavg().map((x) => x.toFixed(1)).join('/')}`);
   }
   const small = results.get('10k'), large = results.get('100k');
   if (small && large) {
