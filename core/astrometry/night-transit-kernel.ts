@@ -3,7 +3,7 @@ import {
   NC_ACCELERATION, NC_ANGLE, NC_COS_LAT, NC_HELIO, NC_INVERSE_HALF_WIDTH, NC_JERK, NC_LOCAL, NC_NPB,
   NC_POSITION, NC_REFRACTION, NC_SIN_LAT, NC_SITE, NC_SITE_VELOCITY, NC_VELOCITY,
 } from './night-context.ts';
-import { refractTangents, refractionScratch } from './refraction-jacobian.ts';
+import { refractionScratch, refractScratch } from './refraction-jacobian.ts';
 import { sinCos } from './sine-cosine.ts';
 
 // Offsets copied into this module's own constants: an imported binding is re-read from its module
@@ -121,18 +121,13 @@ export function reduceTransitFromNight(c: Float64Array, dt: number, days: number
   t[7] = m3 * kx + m4 * ky + m5 * kz;
   t[8] = m6 * kx + m7 * ky + m8 * kz;
   const cosLat = c[COS_LAT], sinLat = c[SIN_LAT];
-  if (c[REFRACTION + 2] !== 0) refractTangents(c[REFRACTION], c[REFRACTION + 1], cosLat, sinLat, t);
-  writeAngles(t, cosLat, sinLat, out, o);
-}
-
-/** Horner form of a quartic in u from the coefficients at `offset` (night-context.ts layout). */
-function quartic(c: Float64Array, offset: number, u: number): number {
-  return c[offset] + u * (c[offset + 1] + u * (c[offset + 2] + u * (c[offset + 3] + u * c[offset + 4])));
-}
-
-/** As in reduction-kernel.ts, with the three reciprocals taken once (a table-driven arctangent in place of Math.atan2 measured no faster). */
-function writeAngles(v: Float64Array, cosLat: number, sinLat: number, out: Float64Array, o: number): void {
-  const x = v[0], y = v[1], z = v[2];
+  if (c[REFRACTION + 2] !== 0) {
+    t[9] = c[REFRACTION]; t[10] = c[REFRACTION + 1]; t[11] = cosLat; t[12] = sinLat;
+    refractScratch(t);
+  }
+  // Angles and their partials, as writeAngles in reduction-kernel.ts (inlined: a call would box
+  // its number arguments), with the three reciprocals taken once.
+  const x = t[0], y = t[1], z = t[2];
   const horizontal2 = x * x + y * y;
   const horizontal = Math.sqrt(horizontal2);
   const cosZ = x * cosLat + z * sinLat;
@@ -142,10 +137,15 @@ function writeAngles(v: Float64Array, cosLat: number, sinLat: number, out: Float
   out[o + 1] = Math.atan2(z, horizontal);
   out[o + 2] = Math.atan2(sinZ, cosZ);
   const inverseH2 = 1 / horizontal2, inverseH = 1 / horizontal, inverseSinZ = 1 / sinZ;
-  out[o + 3] = (y * v[3] - x * v[4]) * inverseH2;
-  out[o + 4] = v[5] * inverseH;
-  out[o + 5] = -(v[3] * cosLat + v[5] * sinLat) * inverseSinZ;
-  out[o + 6] = (y * v[6] - x * v[7]) * inverseH2;
-  out[o + 7] = v[8] * inverseH;
-  out[o + 8] = -(v[6] * cosLat + v[8] * sinLat) * inverseSinZ;
+  out[o + 3] = (y * t[3] - x * t[4]) * inverseH2;
+  out[o + 4] = t[5] * inverseH;
+  out[o + 5] = -(t[3] * cosLat + t[5] * sinLat) * inverseSinZ;
+  out[o + 6] = (y * t[6] - x * t[7]) * inverseH2;
+  out[o + 7] = t[8] * inverseH;
+  out[o + 8] = -(t[6] * cosLat + t[8] * sinLat) * inverseSinZ;
+}
+
+/** Horner form of a quartic in u from the coefficients at `offset` (night-context.ts layout). */
+function quartic(c: Float64Array, offset: number, u: number): number {
+  return c[offset] + u * (c[offset + 1] + u * (c[offset + 2] + u * (c[offset + 3] + u * c[offset + 4])));
 }

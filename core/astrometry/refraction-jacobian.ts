@@ -1,8 +1,11 @@
 import { F_COS_LAT, F_HAS_REFRACTION, F_REFRACTION_A, F_REFRACTION_B, F_SIN_LAT } from './instant-frame.ts';
 
-/** Scratch for `applyRefraction`: a direction (0–2) and two tangent vectors (3–5, 6–8). */
+/**
+ * Scratch for `applyRefraction` and `refractScratch`: a direction (0–2), two tangent vectors
+ * (3–5, 6–8), then the refraction constants A, B (rad) and cos φ, sin φ (9–12).
+ */
 export function refractionScratch(): Float64Array {
-  return new Float64Array(9);
+  return new Float64Array(13);
 }
 
 /** cos Z below which (Z > 89.5°) the kernel applies no refraction, as observedPlace does. */
@@ -19,14 +22,21 @@ const HORIZON_COS = Math.cos((89.5 * Math.PI) / 180);
  */
 export function applyRefraction(frame: Float64Array, t: Float64Array): void {
   if (frame[F_HAS_REFRACTION] === 0) return;
-  refractTangents(frame[F_REFRACTION_A], frame[F_REFRACTION_B], frame[F_COS_LAT], frame[F_SIN_LAT], t);
+  t[9] = frame[F_REFRACTION_A];
+  t[10] = frame[F_REFRACTION_B];
+  t[11] = frame[F_COS_LAT];
+  t[12] = frame[F_SIN_LAT];
+  refractScratch(t);
 }
 
 /**
- * `applyRefraction` with the constants given directly: A and B (rad) of refraction.ts, cos φ and
- * sin φ of the site's latitude; refracts t[0..2] and carries t[3..8] in place, as described there.
+ * `applyRefraction` with the constants in the scratch itself (t[9..12]: A and B of refraction.ts
+ * in radians, cos φ and sin φ of the site's latitude): refracts t[0..2] and carries t[3..8] in
+ * place, as described there. The constants travel in the array because numbers passed to a call
+ * that is not inlined are boxed, one allocation each per transit.
  */
-export function refractTangents(a: number, b: number, cosLat: number, sinLat: number, t: Float64Array): void {
+export function refractScratch(t: Float64Array): void {
+  const a = t[9], b = t[10], cosLat = t[11], sinLat = t[12];
   const x = t[0], y = t[1], z = t[2];
   const cosZ = x * cosLat + z * sinLat;
   if (cosZ < HORIZON_COS) return;
