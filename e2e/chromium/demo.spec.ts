@@ -5,7 +5,7 @@ import { expect, test } from './fixtures.ts';
 test('a first start restores the demo archive; removing it takes one action and it stays removed', async ({ page }) => {
   await page.goto('./#/exchange');
   const counts = page.getByTestId('archive-counts');
-  await expect(counts).toContainText('1 site · 1 instrument · 24 stars · 658 nights · 5599 transits', { timeout: 20_000 });
+  await expect(counts).toContainText('1 site · 2 instruments · 32 stars · 920 nights · 7558 transits', { timeout: 20_000 });
   const panel = page.getByTestId('demo-panel');
   await expect(panel).toContainText('Bramblecote Hill Observatory (which does not exist)');
   await page.screenshot({ path: 'e2e-output/screenshots/day-exchange-demo.png', fullPage: true });

@@ -2,7 +2,7 @@ import { expect, test, VIEW_LABELS } from './fixtures.ts';
 import { findNonRedColours } from './nightColours.ts';
 
 // Saves every view in each theme for a person to look at (e2e-output/screenshots/, not committed),
-// with the demo archive (an invented observatory: one site, one transit instrument, 24 stars) so
+// with the demo archive (an invented observatory: one site, a transit instrument and a zenith camera, 32 stars) so
 // that each view has something to show, a night open in the Archive and a refused site entry.
 // Tonight is shown at a fixed evening so the programme is the same on every run.
 const EVENING = new Date('2026-12-01T17:00:00Z');
@@ -13,7 +13,7 @@ for (const themeLabel of ['Day', 'Dark', 'Night (red)'] as const) {
     await page.setViewportSize({ width: 1280, height: 800 });
     await page.clock.install({ time: EVENING });
     await page.goto('./#/archive');
-    await expect(page.getByRole('heading', { name: 'Nights (658)' })).toBeVisible({ timeout: 30_000 });
+    await expect(page.getByRole('heading', { name: 'Nights (920)' })).toBeVisible({ timeout: 30_000 });
     await page.getByRole('button', { name: themeLabel }).click();
     // A night open, and a site entry refused with its reason (nothing is saved: the demo keeps one site).
     await page.getByRole('button', { name: /^Night of \d{4}-\d{2}-\d{2}, \d+ transits/ }).nth(300).click();
@@ -32,7 +32,7 @@ for (const themeLabel of ['Day', 'Dark', 'Night (red)'] as const) {
         await page.getByRole('button', { name: 'Run check' }).click();
         await expect(page.getByTestId('selftest-status')).toHaveAttribute('data-phase', 'finished');
       }
-      if (label === 'Exchange') await expect(page.getByTestId('archive-counts')).toContainText('24 stars · 658 nights · 5599 transits');
+      if (label === 'Exchange') await expect(page.getByTestId('archive-counts')).toContainText('32 stars · 920 nights · 7558 transits');
       await page.screenshot({ path: `e2e-output/screenshots/${slug}-${index + 1}-${label.toLowerCase()}.png`, fullPage: true });
       if (themeLabel === 'Night (red)') expect(await findNonRedColours(page, 0), `colours with green or blue in ${label}`).toEqual([]);
     }

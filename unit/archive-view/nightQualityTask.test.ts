@@ -14,7 +14,7 @@ import { NIGHT_QUALITY_CHUNK, nightQualityCache, runNightQuality } from '../../r
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
 
 interface Truth { blunders: { transitId: string; kind: string }[] }
-const BLUNDER_NIGHT = 'night-2019-12-08'; // demo-truth.json: a star swapped (ML-010 written as ML-012)
+const BLUNDER_NIGHT = 'night-2020-03-17'; // demo-truth.json: a star swapped (ML-011 written as ML-012)
 
 async function demoSubset(keepFirst: number): Promise<{ name: string; database: ArchiveDatabase; kept: string[]; truth: Truth }> {
   const name = uniqueDatabaseName('night-quality');
@@ -23,9 +23,14 @@ async function demoSubset(keepFirst: number): Promise<{ name: string; database: 
   const truth = JSON.parse(await readFile('assets/demo/demo-truth.json', 'utf8')) as Truth;
   const nights = await database.nights.orderBy('localDate').toArray();
   const kept = [...new Set([...nights.slice(0, keepFirst).map((n) => n.id), BLUNDER_NIGHT])];
-  const dropped = nights.map((n) => n.id).filter((id) => !kept.includes(id));
-  await database.nights.bulkDelete(dropped);
-  await database.transits.where('nightId').anyOf(dropped).delete();
+  // Keep the few nights by clearing and writing them back: deleting thousands of indexed rows one
+  // by one takes minutes in fake-indexeddb.
+  const keptNights = nights.filter((n) => kept.includes(n.id));
+  const keptTransits = await database.transits.where('nightId').anyOf(kept).toArray();
+  await database.nights.clear();
+  await database.transits.clear();
+  await database.nights.bulkAdd(keptNights);
+  await database.transits.bulkAdd(keptTransits);
   return { name, database, kept, truth };
 }
 

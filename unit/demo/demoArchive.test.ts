@@ -13,9 +13,20 @@ describe('loadDemoIfFirstStart(database, fetchDemo)', () => {
   it('restores the whole demo into an empty archive, marked with the demo import id', async () => {
     const database = new ArchiveDatabase(uniqueDatabaseName('demo-load'));
     const counts = await loadDemoIfFirstStart(database, fetchDemo, NOW);
-    expect(counts).toMatchObject({ sites: 1, instruments: 1, stars: 24 });
+    // main/scripts/make-demo-archive.ts: 24 programme stars and 8 near the zenith for the camera.
+    expect(counts).toMatchObject({ sites: 1, instruments: 2, stars: 32 });
     expect(counts?.transits).toBeGreaterThan(5000);
-    expect(await database.transits.where('importId').notEqual(DEMO_IMPORT_ID).count()).toBe(0);
+    // One transit instrument and one fixed zenith camera, each with its own nights and transits.
+    const instruments = await database.instruments.toArray();
+    expect(instruments.map((i) => [i.kind, i.readingUnit]).sort()).toEqual([['fixed-camera', 'pixel'], ['transit', 'micrometer-turn']]);
+    const camera = instruments.find((i) => i.kind === 'fixed-camera')!;
+    expect(camera.camera).toEqual({ orientationDeg: 0, parity: 1, opticalCentrePx: [1024, 1024], referenceColumnPx: 1024 });
+    const cameraNights = (await database.nights.toArray()).filter((n) => n.instrumentId === camera.id).length;
+    expect(cameraNights).toBeGreaterThan(100);
+    // The simulator keeps only nights with three transits or more.
+    expect((await database.transits.toArray()).filter((t) => t.instrumentId === camera.id).length).toBeGreaterThanOrEqual(3 * cameraNights);
+    // Filtered in memory: fake-indexeddb's notEqual range over ~7,500 rows takes minutes.
+    expect((await database.transits.toArray()).filter((t) => t.importId !== DEMO_IMPORT_ID).length).toBe(0);
     expect((await database.stars.toArray()).every((s) => s.visibility === 'visible')).toBe(true);
     expect(await demoState(database)).toEqual({ state: 'loaded', whenUtc: NOW });
     // A second start does nothing.
