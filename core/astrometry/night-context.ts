@@ -65,7 +65,8 @@ export const NC_COS_LAT = 116;
 export const NC_SIN_LAT = 117;
 export const NC_REFRACTION = 118; // A, B, has-refraction flag
 export const NC_INVERSE_HALF_WIDTH = 121;
-export const NC_LENGTH = 122;
+export const NC_CENTRE_DAYS = 122; // the centre, TT days since J2000.0 (as centreDaysSinceJ2000)
+export const NC_LENGTH = 123;
 /** Coefficients per interpolated quantity: a quartic through five equally spaced instants. */
 export const NC_ORDER = 5;
 
@@ -87,6 +88,7 @@ export function createNightContext(options: NightContextOptions): NightContext {
   const orientations = exact ? exactOrientations(samples) : fastOrientations(samples, centre, offsets);
   fillRotations(c, orientations, options.site.longitudeRad, offsets);
   c[NC_INVERSE_HALF_WIDTH] = 1 / h;
+  c[NC_CENTRE_DAYS] = days;
   fillSite(c, options.site, orientations[1].polarMotion);
   const refraction = options.weather === null ? null : refractionConstants(options.weather);
   c[NC_REFRACTION] = refraction?.aRad ?? 0;

@@ -1,6 +1,6 @@
 import { CONSTANT_OF_ABERRATION_RAD, LIGHT_TIME_AU_DAYS, SCHWARZSCHILD_RADIUS_SUN_AU, SPEED_OF_LIGHT_AU_PER_DAY } from './constants.ts';
 import {
-  NC_ACCELERATION, NC_ANGLE, NC_COS_LAT, NC_HELIO, NC_INVERSE_HALF_WIDTH, NC_JERK, NC_LOCAL, NC_NPB,
+  NC_ACCELERATION, NC_ANGLE, NC_CENTRE_DAYS, NC_COS_LAT, NC_HELIO, NC_INVERSE_HALF_WIDTH, NC_JERK, NC_LOCAL, NC_NPB,
   NC_POSITION, NC_REFRACTION, NC_SIN_LAT, NC_SITE, NC_SITE_VELOCITY, NC_VELOCITY,
 } from './night-context.ts';
 import { refractionScratch, refractScratch } from './refraction-jacobian.ts';
@@ -11,7 +11,7 @@ import { sinCos } from './sine-cosine.ts';
 const POSITION = NC_POSITION, VELOCITY = NC_VELOCITY, ACCELERATION = NC_ACCELERATION, JERK = NC_JERK;
 const HELIO = NC_HELIO, NPB = NC_NPB, LOCAL = NC_LOCAL, ANGLE = NC_ANGLE, SITE = NC_SITE;
 const SITE_VELOCITY = NC_SITE_VELOCITY, COS_LAT = NC_COS_LAT, SIN_LAT = NC_SIN_LAT;
-const REFRACTION = NC_REFRACTION, INVERSE_HALF_WIDTH = NC_INVERSE_HALF_WIDTH;
+const REFRACTION = NC_REFRACTION, INVERSE_HALF_WIDTH = NC_INVERSE_HALF_WIDTH, CENTRE_DAYS = NC_CENTRE_DAYS;
 const INVERSE_C = 1 / SPEED_OF_LIGHT_AU_PER_DAY;
 const C = SPEED_OF_LIGHT_AU_PER_DAY;
 const LIGHT_TIME = LIGHT_TIME_AU_DAYS;
@@ -24,15 +24,18 @@ const t = refractionScratch();
  * One transit of a night, fused: the instant frame of `fillFrameFromNight` (night-frame.ts) kept in
  * local variables and the observed place with partials of `reduceStar` (reduction-kernel.ts) —
  * same formulas, same order, so results agree with that pair to rounding (< 1e-12 rad, asserted in
- * unit/astrometry/night-transit-kernel.test.ts). `c` are the night's coefficients, `dt` the TT
- * offset from the night's centre (days; the caller checks the span), `days` TT days since J2000.0,
+ * unit/astrometry/night-transit-kernel.test.ts). `c` are the night's coefficients, the instant is
+ * `ttDaysSinceJ2000[k]` (TT days since J2000.0; the caller checks it lies within the night's span),
  * `s` the star's offset in the packed stars (prepared-stars.ts); writes RESULT_STRIDE numbers
- * (layout in reduction-kernel.ts) at `o`. No allocation.
+ * (layout in reduction-kernel.ts) at `o`. No allocation: only arrays and integers are passed, as
+ * numbers passed to a call that is not inlined are boxed.
  *
  * One function rather than frame + kernel: splitting it forces the frame through an array
  * (29 stores and loads per transit) and the offsets through imported bindings.
  */
-export function reduceTransitFromNight(c: Float64Array, dt: number, days: number, stars: Float64Array, s: number, out: Float64Array, o: number): void {
+export function reduceTransitFromNight(c: Float64Array, ttDaysSinceJ2000: Float64Array, k: number, stars: Float64Array, s: number, out: Float64Array, o: number): void {
+  const days = ttDaysSinceJ2000[k];
+  const dt = days - c[CENTRE_DAYS];
   // --- the frame (night-frame.ts) ---
   const u = dt * c[INVERSE_HALF_WIDTH];
   const theta = quartic(c, ANGLE, u);

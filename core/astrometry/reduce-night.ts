@@ -37,6 +37,6 @@ export function reduceNight(
     if (!(star >= 0 && star < starCount)) {
       throw new RangeError(`reduceNight: starIndex[${k}] = ${star} is not one of the ${starCount} packed stars; index into the array prepareStars returned`);
     }
-    reduceTransitFromNight(c, dt, days, stars, star * STAR_STRIDE, out, k * RESULT_STRIDE);
+    reduceTransitFromNight(c, ttDaysSinceJ2000, k, stars, star * STAR_STRIDE, out, k * RESULT_STRIDE);
   }
 }
