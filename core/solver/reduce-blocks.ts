@@ -21,6 +21,12 @@ export interface ReducedSystem {
   readonly coupling: Float64Array;
   readonly constraintNormal: Float64Array;
   readonly constraintRhs: Float64Array;
+  /**
+   * Σ w·partial² per global over every row, before any elimination: how much data touches each
+   * global at all. A unit-consistent scale where the reduced diagonal has been eaten by the
+   * elimination (a global the locals fully absorb), used to scale global-only constraints.
+   */
+  readonly unreducedDiagonal: Float64Array;
   /** Blocks whose local matrix was singular, with the dropped directions (scaled coordinates). */
   readonly singularBlocks: readonly { block: number; vectors: readonly Float64Array[]; relativeEigenvalues: readonly number[] }[];
 }
@@ -126,6 +132,7 @@ export function reduceBlocks(
   const rowStart = new Int32Array(n + 1);
   for (let g = 0; g < n; g++) rowStart[g + 1] = rowStart[g] + n - g;
   const normalSum = new CompensatedArraySum(rowStart[n]);
+  const unreducedDiagonal = new Float64Array(n);
   const rhsSum = new CompensatedArraySum(n);
   const B = new Float64Array(m * n);
   const E = new Float64Array(m * m);
@@ -139,6 +146,7 @@ export function reduceBlocks(
     if (ws.dropped.length > 0 && recordSingular) {
       singularBlocks.push({ block, vectors: ws.dropped.map((x) => x.vector), relativeEigenvalues: ws.dropped.map((x) => x.relativeEigenvalue) });
     }
+    for (let i = 0; i < ws.touchedCount; i++) unreducedDiagonal[ws.touched[i]] += ws.normalTouched[i * ws.touchedCount + i];
     subtractSchur(ws);
     scatter(ws, rowStart, normalSum.chunk, rhsSum.chunk);
     if (ws.constraintCount > 0) addConstraintTerms(ws, m, n, B, E, d);
@@ -157,5 +165,5 @@ export function reduceBlocks(
       normal[j * n + i] = value;
     }
   }
-  return { n, normal, rhs: rhsSum.result(), constraintCount: m, coupling: B, constraintNormal: E, constraintRhs: d, singularBlocks };
+  return { n, normal, rhs: rhsSum.result(), constraintCount: m, coupling: B, constraintNormal: E, constraintRhs: d, unreducedDiagonal, singularBlocks };
 }

@@ -75,7 +75,7 @@ export function solveGlobals(prep: PreparedProblem, reduced: ReducedSystem, with
   const B = reduced.coupling;
   const { F, Einv } = eliminateMultipliers(prep, reduced, S, h);
   const k = prep.globalConstraints.length;
-  const { C, d } = unitConstraintRows(prep, S, n);
+  const { C, d } = unitConstraintRows(prep, S, reduced.unreducedDiagonal, n);
   const M = S.slice();
   for (let i = 0; i < k; i++) {
     for (let a = 0; a < n; a++) {
@@ -169,8 +169,15 @@ function eliminateMultipliers(prep: PreparedProblem, reduced: ReducedSystem, S: 
   return { F, Einv };
 }
 
-/** Global-only constraint rows C (k×n) and values d, each scaled to unit norm in the metric diag(S)⁻¹ (unit-diagonal coordinates). */
-function unitConstraintRows(prep: PreparedProblem, S: Float64Array, n: number): { C: Float64Array; d: Float64Array } {
+/**
+ * Global-only constraint rows C (k×n) and values d, each scaled to unit norm in the metric diag(S)⁻¹
+ * (unit-diagonal coordinates). Where the elimination left a global less than 1e-8 of the
+ * information its rows carried (`unreduced`), or none, that raw information (else 1) stands in for
+ * S_gg: dividing by a vanishing S_gg would shrink the row of exactly the constraint that fixes an
+ * undetermined global to nothing, and T = C·M⁻¹·Cᵀ would look singular. Any positive row scale
+ * gives the same constrained solution; this one only keeps it well conditioned.
+ */
+function unitConstraintRows(prep: PreparedProblem, S: Float64Array, unreduced: Float64Array, n: number): { C: Float64Array; d: Float64Array } {
   const k = prep.globalConstraints.length;
   const C = new Float64Array(k * n);
   const d = new Float64Array(k);
@@ -179,7 +186,12 @@ function unitConstraintRows(prep: PreparedProblem, S: Float64Array, n: number): 
     constraint.globalIndex.forEach((g, j) => {
       C[i * n + g] += constraint.globalCoefficient[j];
     });
-    for (let g = 0; g < n; g++) norm2 += (C[i * n + g] * C[i * n + g]) / Math.max(S[g * n + g], Number.MIN_VALUE);
+    for (let g = 0; g < n; g++) {
+      if (C[i * n + g] === 0) continue;
+      const raw = unreduced[g] + prep.globalPriorWeight[g];
+      const metric = S[g * n + g] > 1e-8 * raw ? S[g * n + g] : raw > 0 ? raw : 1;
+      norm2 += (C[i * n + g] * C[i * n + g]) / metric;
+    }
     const factor = 1 / Math.sqrt(norm2);
     for (let g = 0; g < n; g++) C[i * n + g] *= factor;
     d[i] = constraint.value * factor;

@@ -186,3 +186,23 @@ describe('symmetricGeneralisedInverse on a singular matrix above the null-space 
     }
   });
 });
+
+describe('a global-only constraint on a global the block locals absorb completely', () => {
+  it('holds that global (no "linearly dependent" error) and agrees with the dense solve to 1e-9', () => {
+    // commonShift: every blocked row carries global 0 and its block's local 0 with partial 1, and
+    // no row is block-less, so after elimination global 0 has (to rounding) no information left:
+    // only the constraint fixes it. The dense reference solves the bordered system directly.
+    const random = randomProblem({ globals: 12, blocks: 20, rows: 240, globalsPerRow: 3, blocklessFraction: 0, commonShift: true }, seededRandom(305));
+    const constraints: LinearConstraint[] = [{ label: 'g0 held at 0.3', terms: [{ parameter: { kind: 'global', index: 0 }, coefficient: 1 }], value: 0.3 }];
+    const solution = jointSolve({ ...random.problem, constraints }, { robust: false, covarianceScale: 'a-priori', degeneracyReport: false });
+    const dense = denseSolve(random.dense({ constraints }));
+    expect(Math.abs(solution.globalEstimate[0] - 0.3)).toBeLessThan(1e-10);
+    const scale = Math.max(...dense.estimate.map(Math.abs));
+    for (let g = 0; g < 12; g++) expect(Math.abs(solution.globalEstimate[g] - dense.estimate[g])).toBeLessThan(1e-9 * scale);
+    for (let b = 0; b < 20; b++) {
+      const at = solution.localOffset[b];
+      expect(Math.abs(solution.localEstimate[at] - dense.estimate[random.column({ kind: 'local', block: b, index: 0 })])).toBeLessThan(1e-9 * scale);
+    }
+    expect(solution.warnings.filter((w) => /not determined/.test(w))).toEqual([]);
+  });
+});
