@@ -1,7 +1,7 @@
 import { BundleError, type BundleHeader, type BundleManifest } from '../../core/archive/bundle-format.ts';
 import { BundleReader } from '../../core/archive/bundle-reader.ts';
 import { decodeUtf8 } from '../../core/formats/utf8.ts';
-import { TaskCancelledError, type TaskControl } from '../../core/task/task-control.ts';
+import { TaskCancelledError, UNCONTROLLED, type TaskControl } from '../../core/task/task-control.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
 import { gunzipBytes } from './gzip.ts';
 
@@ -22,8 +22,7 @@ const VERIFY_CHUNK_LINES = 5_000;
  * row count or SHA-256 differs from the manifest.
  */
 export async function verifyBundle(database: ArchiveDatabase, bytes: Uint8Array, control: TaskControl): Promise<VerifiedBundle> {
-  const decoded = decodeUtf8(await gunzipBytes(bytes));
-  if (!decoded.ok) throw new BundleError(`the bundle is not valid UTF-8: ${decoded.reason}`, null);
+  const inflated = await gunzipBytes(bytes);
   const known = new Set(database.tables.map((t) => t.name));
   const rows = new Map<string, unknown[]>();
   const reader = new BundleReader((table, row) => {
@@ -31,23 +30,64 @@ export async function verifyBundle(database: ArchiveDatabase, bytes: Uint8Array,
     if (list === undefined) rows.set(table, (list = []));
     list.push(row);
   });
-  const lines = decoded.text.split('\n');
-  if (lines.at(-1) === '') lines.pop();
-  for (let i = 0; i < lines.length; i++) {
-    reader.line(lines[i]);
-    if (i === 0) checkSchema(JSON.parse(lines[0]) as BundleHeader);
-    if ((i + 1) % VERIFY_CHUNK_LINES === 0) {
-      if (control.cancellation.isCancelled) throw new TaskCancelledError('the bundle check', i + 1);
-      control.reportProgress(i + 1, lines.length);
-      await control.yieldToHost();
+  let lineNumber = 0;
+  for (const { lines, fractionRead } of utf8LineBlocks(inflated)) {
+    // The line count is known only at the end: estimated from the share of bytes read.
+    const estimatedLines = Math.max(lineNumber + lines.length, Math.round((lineNumber + lines.length) / fractionRead));
+    for (const line of lines) {
+      reader.line(line);
+      if (lineNumber === 0) checkSchema(JSON.parse(line) as BundleHeader);
+      if (++lineNumber % VERIFY_CHUNK_LINES === 0) {
+        if (control.cancellation.isCancelled) throw new TaskCancelledError('the bundle check', lineNumber);
+        control.reportProgress(lineNumber, estimatedLines);
+        await control.yieldToHost();
+      }
     }
   }
   const { header, manifest } = reader.finish();
   for (const table of manifest.tables) {
     if (!known.has(table.name)) throw new BundleError(`the bundle holds a table "${table.name}" this archive does not have; update Meridian Ledger`, null);
   }
-  control.reportProgress(lines.length, lines.length);
+  control.reportProgress(lineNumber, lineNumber);
   return { header, manifest, rows };
+}
+
+/** Bytes of decompressed bundle decoded per block (a block ends after a line break where it can). */
+const DECODE_BLOCK_BYTES = 8 << 20;
+
+/**
+ * The lines of UTF-8 bytes (split at "\n", a last empty line dropped), decoded a block at a time
+ * so the bundle is never one string (a million rows pass V8's longest string), with the share of
+ * bytes read so far. A leading byte-order mark is dropped, as decodeUtf8 of the whole does; invalid
+ * UTF-8 anywhere is refused with decodeUtf8's message for the whole bytes (offset from the start).
+ */
+function* utf8LineBlocks(bytes: Uint8Array): Generator<{ lines: string[]; fractionRead: number }> {
+  const decoder = new TextDecoder('utf-8', { fatal: true, ignoreBOM: true });
+  const hasBom = bytes.length >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf;
+  const refuse = (): never => {
+    const whole = decodeUtf8(bytes);
+    throw new BundleError(`the bundle is not valid UTF-8: ${whole.ok ? 'a block could not be decoded' : whole.reason}`, null);
+  };
+  let pendingTail = '';
+  for (let start = hasBom ? 3 : 0; start < bytes.length; ) {
+    let end = Math.min(bytes.length, start + DECODE_BLOCK_BYTES);
+    if (end < bytes.length) {
+      const lastBreak = bytes.lastIndexOf(0x0a, end - 1);
+      if (lastBreak >= start) end = lastBreak + 1;
+    }
+    let text = '';
+    try {
+      // stream: a block cut inside a very long line may split a multi-byte sequence.
+      text = decoder.decode(bytes.subarray(start, end), { stream: end < bytes.length });
+    } catch {
+      refuse();
+    }
+    const lines = (pendingTail + text).split('\n');
+    pendingTail = lines.pop() ?? '';
+    start = end;
+    yield { lines, fractionRead: end / bytes.length };
+  }
+  if (pendingTail !== '') yield { lines: [pendingTail], fractionRead: 1 };
 }
 
 function checkSchema(header: BundleHeader): void {
@@ -64,16 +104,22 @@ export async function countArchiveRows(database: ArchiveDatabase): Promise<numbe
 
 export type RestoreMode = 'into-empty' | 'replace';
 
+/** Rows per bulkPut inside the restore's one transaction. */
+const RESTORE_CHUNK_ROWS = 10_000;
+
 /**
  * Writes a verified bundle into the archive in ONE IndexedDB transaction, so a crash, a closed
  * window or a quota error leaves the archive exactly as it was (IndexedDB aborts the whole
  * transaction). 'into-empty' refuses an archive that holds any row — a restore never mixes with
  * existing data; 'replace' (which the view offers only after an explicit confirmation) clears
- * every table inside the same transaction. Rows are written as the bundle holds them, ids,
+ * every table inside the same transaction. A cancel between chunks aborts it, leaving the archive
+ * as it was. Rows are written as the bundle holds them, ids,
  * import ids and every float bit for bit.
  */
-export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedBundle, mode: RestoreMode): Promise<Record<string, number>> {
+export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedBundle, mode: RestoreMode, control: TaskControl = UNCONTROLLED): Promise<Record<string, number>> {
   const counts: Record<string, number> = {};
+  const total = [...bundle.rows.values()].reduce((sum, rows) => sum + rows.length, 0);
+  let done = 0;
   await database.transaction('rw', database.tables, async () => {
     if (mode === 'into-empty') {
       const existing = await countArchiveRows(database);
@@ -83,8 +129,16 @@ export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedB
     } else {
       for (const table of database.tables) await table.clear();
     }
+    // Chunked only for progress and cancel: every chunk is in the one transaction. Never await
+    // the host in here (a timer would let IndexedDB commit early); cancel arrives meanwhile.
     for (const [name, rows] of bundle.rows) {
-      await database.table(name).bulkPut(rows as object[]);
+      for (let start = 0; start < rows.length; start += RESTORE_CHUNK_ROWS) {
+        if (control.cancellation.isCancelled) throw new TaskCancelledError('the restore', done);
+        const chunk = rows.slice(start, start + RESTORE_CHUNK_ROWS) as object[];
+        await database.table(name).bulkPut(chunk);
+        done += chunk.length;
+        control.reportProgress(done, total);
+      }
       counts[name] = rows.length;
     }
   });

@@ -108,7 +108,7 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
       const clock = new StageClock('bundle restore');
       const verified = await verifyBundle(database, request.bytes, control);
       clock.lap('unzip, read and verify');
-      const rowCounts = await restoreBundle(database, verified, request.mode);
+      const rowCounts = await restoreBundle(database, verified, request.mode, control);
       clock.lap('write');
       clock.log();
       return { kind: request.kind, rowCounts };
