@@ -85,9 +85,11 @@ async function main(): Promise<void> {
     page.setDefaultTimeout(3_600_000);
     // The worker's stage times (renderer/exchange/stageClock.ts) arrive as console debug lines.
     const stageLines: string[] = [];
-    page.on('console', (message) => {
-      if (message.text().startsWith('[exchange]')) stageLines.push(message.text());
-    });
+    const keepStageLine = (text: string) => {
+      if (text.startsWith('[exchange]')) stageLines.push(text);
+    };
+    page.on('console', (message) => keepStageLine(message.text()));
+    page.on('worker', (worker) => worker.on('console', (message) => keepStageLine(message.text())));
     await page.addInitScript(() => {
       const longest = { ms: 0, count: 0 };
       (window as unknown as { __longTasks: typeof longest }).__longTasks = longest;
@@ -160,7 +162,7 @@ async function main(): Promise<void> {
     console.log(`bundle restore, replacing the archive:           ${seconds(restoreMs)}   target < 60 s${scaled(restoreMs)}`);
     console.log(`longest main-thread task over the whole run:     ${atEnd.ms.toFixed(0)} ms (${atEnd.count} long tasks)`);
     if (TRANSITS < TARGET) console.log('Figures marked "extrapolated" are a linear scaling of the measured size, not measurements at 1,000,000.');
-    for (const line of stageLines.filter((l) => !/site\.json|stars\.csv/.test(l))) console.log(line);
+    for (const line of [...new Set(stageLines)].filter((l) => !/site\.json|stars\.csv/.test(l))) console.log(line);
   } finally {
     await browser.close();
     await new Promise<void>((resolve) => server.httpServer.close(() => resolve()));
