@@ -36,12 +36,20 @@ export function isOurTransitColumn(name: string): boolean {
   return OURS.has(name) || (TRANSIT_LOG_COLUMNS as readonly string[]).includes(name) || /^wire[1-9]\d?(Utc|ClockS)$/.test(name);
 }
 
-/** The header of a CSV file (trimmed names), or null when it cannot be read (the parser says why). */
+/** Index of the first CR or LF byte, or the length: only the header line is decoded (a log can be 100 MB). */
+function firstLineEnd(bytes: Uint8Array): number {
+  for (let i = 0; i < bytes.length; i++) if (bytes[i] === 0x0a || bytes[i] === 0x0d) return i;
+  return bytes.length;
+}
+
+/**
+ * The header of a CSV file (trimmed names), or null when it cannot be read (the parser says why).
+ * Reads the first line's bytes only, so it is cheap on the main thread for any file size.
+ */
 export function readCsvHeader(bytes: Uint8Array): string[] | null {
-  const decoded = decodeUtf8(bytes);
+  const decoded = decodeUtf8(bytes.subarray(0, firstLineEnd(bytes)));
   if (!decoded.ok) return null;
-  const end = decoded.text.search(/\r?\n|\r/);
-  const first = readCsv(end < 0 ? decoded.text : decoded.text.slice(0, end));
+  const first = readCsv(decoded.text);
   return first.records.length === 1 && first.problems.length === 0 ? first.records[0].fields.map((f) => f.trim()) : null;
 }
 
@@ -56,13 +64,8 @@ function quote(field: string): string {
  * is refused with the names.
  */
 export function applyColumnMapping(bytes: Uint8Array, mapping: ColumnMapping): Uint8Array {
-  const decoded = decodeUtf8(bytes);
-  if (!decoded.ok) return bytes; // the parser reports the byte offset
-  const text = decoded.text;
-  const end = text.search(/\r?\n|\r/);
-  const headerText = end < 0 ? text : text.slice(0, end);
-  const header = readCsvHeader(encodeUtf8(headerText));
-  if (header === null) return bytes;
+  const header = readCsvHeader(bytes);
+  if (header === null) return bytes; // the parser reports why
   const targets = new Map<string, string>();
   const renamed = header.map((theirs) => {
     const ours = mapping[theirs];
@@ -72,5 +75,14 @@ export function applyColumnMapping(bytes: Uint8Array, mapping: ColumnMapping): U
     targets.set(ours, theirs);
     return ours;
   });
-  return encodeUtf8(renamed.map(quote).join(',') + (end < 0 ? '' : text.slice(end)));
+  // Names unchanged: the reader trims header names, so the file reads the same as rewritten (and
+  // a million-row log is not decoded and encoded again for nothing).
+  if (renamed.every((name, k) => name === header[k])) return bytes;
+  if (!decodeUtf8(bytes).ok) return bytes; // the parser reports the byte offset, which must stay the file's own
+  const headerEnd = firstLineEnd(bytes);
+  const renamedHeader = encodeUtf8(renamed.map(quote).join(','));
+  const out = new Uint8Array(renamedHeader.length + bytes.length - headerEnd);
+  out.set(renamedHeader);
+  out.set(bytes.subarray(headerEnd), renamedHeader.length);
+  return out;
 }
