@@ -1,5 +1,5 @@
 import { equinoxComplementaryTerms } from '../earth/equation-of-equinoxes-06.ts';
-import { nutation00bAtSteps, nutation06a } from '../earth/nutation-series.ts';
+import { nutation06a, nutation06aAtSteps } from '../earth/nutation-series.ts';
 import { applyTranspose, multiply, rotationZ } from '../math/mat3.ts';
 import type { Vec3 } from '../math/vec3.ts';
 import { SECONDS_PER_DAY, TAU } from '../units.ts';
@@ -108,20 +108,14 @@ function exactOrientations(samples: readonly AstrometricInstant[]): EarthOrienta
 
 /** 'fast' mode: full nutation at the centre, its change across the night from IAU 2000B. */
 function fastOrientations(samples: readonly AstrometricInstant[], centre: TwoPartJulianDate, offsets: readonly number[]): EarthOrientation[] {
-  const full = nutation06a(centre);
-  nutation00bAtSteps(centre, offsets[3], shortNutation);
+  nutation06aAtSteps(centre, offsets[3], sampleNutation);
   const nutations = [];
-  for (let k = 0; k < samples.length; k++) {
-    nutations.push({
-      dpsiRad: full.dpsiRad + shortNutation[2 * k] - shortNutation[4],
-      depsRad: full.depsRad + shortNutation[2 * k + 1] - shortNutation[5],
-    });
-  }
+  for (let k = 0; k < samples.length; k++) nutations.push({ dpsiRad: sampleNutation[2 * k], depsRad: sampleNutation[2 * k + 1] });
   return nightOrientations(samples, offsets, nutations, equinoxComplementaryTerms(centre));
 }
 
-/** IAU 2000B at the five samples (Δψ, Δε pairs), refilled by each fast context. */
-const shortNutation = new Float64Array(10);
+/** Nutation at the five samples (Δψ, Δε pairs), refilled by each fast context. */
+const sampleNutation = new Float64Array(10);
 
 /** Quartics of the NPB matrix, of R3(λ)·W and of GAST through the five samples. */
 function fillRotations(c: Float64Array, orientations: readonly EarthOrientation[], longitudeRad: number, offsets: readonly number[]): void {

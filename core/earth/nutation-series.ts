@@ -144,57 +144,65 @@ export function nutation00b(tt: JulianDate): Nutation {
   };
 }
 
-/** Rates of the linear 2000B Delaunay arguments (arcsec per Julian century), as in nutation00b. */
-const DELAUNAY_2000B_RATES_ARCSEC = [1717915923.2178, 129596581.0481, 1739527262.8478, 1602961601.209, -6962890.5431];
-const stepHarmonics = new FactoredHarmonics(LUNISOLAR_MULTIPLIERS.subarray(0, 5 * LUNISOLAR_2000B_TERM_COUNT), 5, 3);
-const stepArguments = new Float64Array(5);
+/** Rates of the Delaunay arguments l, l′, F, D, Ω at J2000 (IERS 2010 eq. 5.43), radians per day. */
+const DELAUNAY_RATES_RAD_PER_DAY = [1717915923.2178, 129596581.0481, 1739527262.8478, 1602961601.209, -6962890.5431]
+  .map((arcsecPerCentury) => (arcsecPerCentury * ARCSEC) / 36525);
+/** Each luni-solar term's angular rate (rad/day) and the step rotations of the last step (cos − 1, sin). */
+const termRates = new Float64Array(LUNISOLAR_TERM_COUNT);
+for (let i = 0; i < LUNISOLAR_TERM_COUNT; i++) {
+  for (let j = 0; j < 5; j++) termRates[i] += LUNISOLAR_MULTIPLIERS[5 * i + j] * DELAUNAY_RATES_RAD_PER_DAY[j];
+}
+const stepTurns = new Float64Array(4 * LUNISOLAR_TERM_COUNT);
 let cachedStepDays = NaN;
-const phaseCos = new Float64Array(5), phaseSin = new Float64Array(5);
 
 /**
- * IAU 2000B at the five instants TT `centre` + k·`stepDays`, k = −2…2, written as Δψ, Δε pairs
- * (radians) into out[0…9] — nutation00b at each instant, to a few ulp, for the cost of one:
- * 2000B's Delaunay arguments are linear in time, so every term's phase at k steps is its phase at
- * the centre turned k times by the term's fixed step rotation (kept from the previous call when
- * `stepDays` is the same). For the per-night context's five samples.
+ * IAU 2000A nutation with the IAU 2006 adjustments (nutation06a) at the five instants TT
+ * `centre` + k·`stepDays`, k = −2…2, written as Δψ, Δε pairs (radians) into out[0…9]. The centre
+ * is nutation06a itself; the change to the other instants is that of all 678 luni-solar terms,
+ * each turned by its own rate (sin(φ + ωτ) − sin φ = sin φ (cos ωτ − 1) + cos φ sin ωτ; the
+ * curvature of the arguments over a day moves a phase by < 1e-8 rad), with the first-order
+ * change of the t-dependent amplitudes. The planetary terms are held at their centre value: over
+ * ±0.5 day they move by less than 38 µas (Σ amplitude × rate × 0.5 d over all 687 terms).
+ * Against nutation06a at each instant: < 0.05 mas for steps up to 0.25 day (asserted in
+ * unit/astrometry/night-nutation.test.ts); 2000B for the change, as before, erred by up to 0.7 mas.
  */
-export function nutation00bAtSteps(centre: JulianDate, stepDays: number, out: Float64Array): void {
+export function nutation06aAtSteps(centre: JulianDate, stepDays: number, out: Float64Array): void {
   if (stepDays !== cachedStepDays) {
-    const stepCenturies = stepDays / 36525;
-    for (let k = 0; k < 5; k++) stepArguments[k] = ((DELAUNAY_2000B_RATES_ARCSEC[k] * stepCenturies) % 1296000) * ARCSEC;
-    stepHarmonics.evaluate(stepArguments, LUNISOLAR_2000B_TERM_COUNT);
+    for (let i = 0; i < LUNISOLAR_TERM_COUNT; i++) {
+      const turn = termRates[i] * stepDays;
+      stepTurns[4 * i] = Math.cos(turn) - 1;
+      stepTurns[4 * i + 1] = Math.sin(turn);
+      stepTurns[4 * i + 2] = Math.cos(2 * turn) - 1;
+      stepTurns[4 * i + 3] = Math.sin(2 * turn);
+    }
     cachedStepDays = stepDays;
   }
+  const value = nutation06a(centre);
+  // nutation06a has just evaluated the luni-solar phases at the centre.
+  const { sines, cosines } = lunisolarHarmonics;
+  const amplitudes = LUNISOLAR_AMPLITUDES, turns = stepTurns;
   const t = julianCenturiesSinceJ2000(centre);
-  delaunay[0] = ((485868.249036 + 1717915923.2178 * t) % 1296000) * ARCSEC;
-  delaunay[1] = ((1287104.79305 + 129596581.0481 * t) % 1296000) * ARCSEC;
-  delaunay[2] = ((335779.526232 + 1739527262.8478 * t) % 1296000) * ARCSEC;
-  delaunay[3] = ((1072260.70369 + 1602961601.209 * t) % 1296000) * ARCSEC;
-  delaunay[4] = ((450160.398036 - 6962890.5431 * t) % 1296000) * ARCSEC;
-  lunisolar2000bHarmonics.evaluate(delaunay, LUNISOLAR_2000B_TERM_COUNT);
-  const { sines, cosines } = lunisolar2000bHarmonics;
-  const { sines: stepSin, cosines: stepCos } = stepHarmonics;
-  const amplitudes = LUNISOLAR_AMPLITUDES;
-  const dt = stepDays / 36525;
-  const dpsi = [0, 0, 0, 0, 0], deps = [0, 0, 0, 0, 0];
-  for (let i = LUNISOLAR_2000B_TERM_COUNT - 1; i >= 0; i--) {
-    const c0 = cosines[i], s0 = sines[i], c1 = stepCos[i], s1 = stepSin[i];
-    const c2 = c1 * c1 - s1 * s1, s2 = 2 * c1 * s1;
-    // Phases at k = −2…2: centre turned by the step rotation and its square, or their conjugates.
-    phaseCos[0] = c0 * c2 + s0 * s2; phaseSin[0] = s0 * c2 - c0 * s2;
-    phaseCos[1] = c0 * c1 + s0 * s1; phaseSin[1] = s0 * c1 - c0 * s1;
-    phaseCos[2] = c0; phaseSin[2] = s0;
-    phaseCos[3] = c0 * c1 - s0 * s1; phaseSin[3] = s0 * c1 + c0 * s1;
-    phaseCos[4] = c0 * c2 - s0 * s2; phaseSin[4] = s0 * c2 + c0 * s2;
-    const a = 6 * i;
-    for (let k = 0; k < 5; k++) {
-      const tk = t + (k - 2) * dt, c = phaseCos[k], s = phaseSin[k];
-      dpsi[k] += (amplitudes[a] + amplitudes[a + 1] * tk) * s + amplitudes[a + 2] * c;
-      deps[k] += (amplitudes[a + 3] + amplitudes[a + 4] * tk) * c + amplitudes[a + 5] * s;
-    }
+  let psiEven1 = 0, psiOdd1 = 0, psiEven2 = 0, psiOdd2 = 0, epsEven1 = 0, epsOdd1 = 0, epsEven2 = 0, epsOdd2 = 0;
+  let psiRate = 0, epsRate = 0;
+  for (let i = LUNISOLAR_TERM_COUNT - 1; i >= 0; i--) {
+    const sn = sines[i], cs = cosines[i], a = 6 * i, r = 4 * i;
+    const psiSin = amplitudes[a] + amplitudes[a + 1] * t, psiCos = amplitudes[a + 2];
+    const epsCos = amplitudes[a + 3] + amplitudes[a + 4] * t, epsSin = amplitudes[a + 5];
+    // Term = X (value) and Y (quadrature, its derivative over ω): X(τ) − X(0) = X (cos ωτ − 1) + Y sin ωτ.
+    const psiX = psiSin * sn + psiCos * cs, psiY = psiSin * cs - psiCos * sn;
+    const epsX = epsCos * cs + epsSin * sn, epsY = epsSin * cs - epsCos * sn;
+    psiEven1 += psiX * turns[r]; psiOdd1 += psiY * turns[r + 1]; psiEven2 += psiX * turns[r + 2]; psiOdd2 += psiY * turns[r + 3];
+    epsEven1 += epsX * turns[r]; epsOdd1 += epsY * turns[r + 1]; epsEven2 += epsX * turns[r + 2]; epsOdd2 += epsY * turns[r + 3];
+    psiRate += amplitudes[a + 1] * sn;
+    epsRate += amplitudes[a + 4] * cs;
   }
+  const scale = TENTH_MICROARCSEC * (1 + 0.4697e-6 - 2.7774e-6 * t);
+  const stepCenturies = stepDays / 36525;
+  const psiEven = [psiEven2, psiEven1, 0, psiEven1, psiEven2], psiOdd = [-psiOdd2, -psiOdd1, 0, psiOdd1, psiOdd2];
+  const epsEven = [epsEven2, epsEven1, 0, epsEven1, epsEven2], epsOdd = [-epsOdd2, -epsOdd1, 0, epsOdd1, epsOdd2];
   for (let k = 0; k < 5; k++) {
-    out[2 * k] = dpsi[k] * TENTH_MICROARCSEC - 0.135 * MAS;
-    out[2 * k + 1] = deps[k] * TENTH_MICROARCSEC + 0.388 * MAS;
+    const dt = (k - 2) * stepCenturies;
+    out[2 * k] = value.dpsiRad + (psiEven[k] + psiOdd[k] + psiRate * dt) * scale;
+    out[2 * k + 1] = value.depsRad + (epsEven[k] + epsOdd[k] + epsRate * dt) * TENTH_MICROARCSEC * (1 - 2.7774e-6 * t);
   }
 }
