@@ -1,4 +1,4 @@
-import { readCsv } from './csv.ts';
+import { readCsv, type CsvProblem, type CsvRecord } from './csv.ts';
 import type { Rejection } from './parse-result.ts';
 import { decodeUtf8 } from './utf8.ts';
 
@@ -7,6 +7,51 @@ export interface TableRow {
   readonly row: number;
   readonly line: number;
   readonly cells: ReadonlyMap<string, string>;
+}
+
+/**
+ * The cells of one data row by column name, read through the table's one name → position map
+ * instead of a Map per row (a million-row log made a million Maps). Behaves as a ReadonlyMap in
+ * header order.
+ */
+class RowCells implements ReadonlyMap<string, string> {
+  constructor(
+    private readonly columnIndex: ReadonlyMap<string, number>,
+    private readonly fields: readonly string[],
+  ) {}
+
+  get size(): number {
+    return this.columnIndex.size;
+  }
+
+  get(name: string): string | undefined {
+    const index = this.columnIndex.get(name);
+    return index === undefined ? undefined : this.fields[index];
+  }
+
+  has(name: string): boolean {
+    return this.columnIndex.has(name);
+  }
+
+  *entries(): MapIterator<[string, string]> {
+    for (const [name, index] of this.columnIndex) yield [name, this.fields[index]];
+  }
+
+  *keys(): MapIterator<string> {
+    yield* this.columnIndex.keys();
+  }
+
+  *values(): MapIterator<string> {
+    for (const index of this.columnIndex.values()) yield this.fields[index];
+  }
+
+  [Symbol.iterator](): MapIterator<[string, string]> {
+    return this.entries();
+  }
+
+  forEach(callback: (value: string, key: string, map: ReadonlyMap<string, string>) => void, thisArg?: unknown): void {
+    for (const [name, value] of this.entries()) callback.call(thisArg, value, name, this);
+  }
 }
 
 /** A decoded CSV file split into header and data rows; structural problems already rejected. */
@@ -28,17 +73,13 @@ export function readCsvTable(bytes: Uint8Array, fileName: string): CsvTable {
   const decoded = decodeUtf8(bytes);
   if (!decoded.ok) return { header: [], rows: [], rejected: [{ row: 0, line: 0, column: '', reason: `${fileName}: ${decoded.reason}` }], totalRows: 0 };
   const { records, problems } = readCsv(decoded.text);
-  // Restore file order: problems carry their record index; good records fill the other places.
-  const ordered: ({ kind: 'ok'; fields: readonly string[]; line: number } | { kind: 'bad'; line: number; field: number; reason: string })[] = [];
+  // Restore file order: problems carry their record index; good records fill the other places
+  // (the records themselves, not copies: a million-row log makes a million of them).
+  const ordered: (CsvRecord | (CsvProblem & { readonly recordIndex: number }))[] = [];
   let good = 0;
   const problemByIndex = new Map(problems.map((p) => [p.recordIndex, p]));
   for (let index = 0; index < records.length + problems.length; index++) {
-    const p = problemByIndex.get(index);
-    if (p) ordered.push({ kind: 'bad', line: p.line, field: p.field, reason: p.reason });
-    else {
-      const r = records[good++];
-      ordered.push({ kind: 'ok', fields: r.fields, line: r.line });
-    }
+    ordered.push(problemByIndex.get(index) ?? records[good++]);
   }
   if (ordered.length === 0) return { header: [], rows: [], rejected: [{ row: 0, line: 1, column: '', reason: `${fileName}: the file is empty; the first line must be the header` }], totalRows: 0 };
   const totalRows = ordered.length - 1;
@@ -46,7 +87,7 @@ export function readCsvTable(bytes: Uint8Array, fileName: string): CsvTable {
   const headerEntry = ordered[0];
   let headerProblem: string | null = null;
   let header: string[] = [];
-  if (headerEntry.kind === 'bad') headerProblem = `the header is malformed: ${headerEntry.reason}`;
+  if ('reason' in headerEntry) headerProblem = `the header is malformed: ${headerEntry.reason}`;
   else {
     header = headerEntry.fields.map((f) => f.trim());
     const seen = new Set<string>();
@@ -61,17 +102,16 @@ export function readCsvTable(bytes: Uint8Array, fileName: string): CsvTable {
     ordered.slice(1).forEach((entry, k) => rejected.push({ row: k + 1, line: entry.line, column: '', reason: 'not read: the header is unusable (see row 0)' }));
     return { header, rows: [], rejected, totalRows };
   }
+  const columnIndex = new Map(header.map((name, i) => [name, i]));
   const rows: TableRow[] = [];
   for (let row = 1; row < ordered.length; row++) {
     const entry = ordered[row];
-    if (entry.kind === 'bad') {
+    if ('reason' in entry) {
       rejected.push({ row, line: entry.line, column: header[entry.field - 1] ?? `field ${entry.field}`, reason: entry.reason });
     } else if (entry.fields.length !== header.length) {
       rejected.push({ row, line: entry.line, column: '', reason: `${entry.fields.length} fields but the header has ${header.length}; quote fields that contain commas` });
     } else {
-      const cells = new Map<string, string>();
-      for (let i = 0; i < header.length; i++) cells.set(header[i], entry.fields[i]);
-      rows.push({ row, line: entry.line, cells });
+      rows.push({ row, line: entry.line, cells: new RowCells(columnIndex, entry.fields) });
     }
   }
   return { header, rows, rejected, totalRows };
