@@ -24,7 +24,8 @@ export interface NightContextOptions {
   readonly instantFromTt: (tt: TwoPartJulianDate) => AstrometricInstant;
   /**
    * 'fast' (default): Earth state once (`earthStateFast`) with analytic acceleration and jerk,
-   * full nutation once plus the 2000B change at the five instants.
+   * full nutation at the centre and its luni-solar change at the five instants (nutation06aAtSteps),
+   * NPB at the five instants to first order from the centre (night-orientation.ts).
    * 'exact': Earth state at three instants and full nutation at all five (about 3× the cost).
    */
   readonly mode?: 'fast' | 'exact';
@@ -35,8 +36,9 @@ export interface NightContextOptions {
  * its acceleration and jerk (Sun exact, Moon from a low-precision ephemeris), and quartic fits,
  * through five instants (centre, ±half-width, ±half of it), of the NPB matrix, of R3(λ)·polar
  * motion and of GAST. In 'fast' mode full IAU 2000A nutation is evaluated once at the centre and
- * its change across the night taken from IAU 2000B at the five instants (the small terms 2000B
- * omits then drift by up to ~0.1 mas within the night). Layout of `coefficients`: the NC_* offsets.
+ * carried to the five instants term by term (within 13 µas of nutation06a there; 2000B's change,
+ * used before, erred by up to 0.67 mas in Δψ at the ends of some nights). Layout of
+ * `coefficients`: the NC_* offsets.
  * Accuracy against the per-instant model over ±0.5 day, asserted in
  * unit/astrometry/night-context.test.ts: < 0.2 mas in 'fast' mode (also because Earth's velocity
  * from acceleration and jerk differs by up to 0.2 m/s from astronomy-engine's own, whose series
