@@ -42,8 +42,9 @@ export interface JointLayout {
   readonly nightSegment: Readonly<Record<SegmentableTerm, Int32Array>>;
   /** Terms the data cannot carry and that were therefore held at their adopted value (fixed at 0), in words. */
   readonly notEstimated: readonly string[];
-  /** The diurnal-aberration scale was held because the data cannot tell it from collimation. */
+  /** The diurnal-aberration scale was held because the data cannot tell it from collimation; the temperature coefficients, because no temperatures were recorded. */
   readonly diurnalHeld: boolean;
+  readonly temperatureHeld: boolean;
 }
 
 /** What buildJointProblem needs beyond the model and the reduced archive: all optional. */
@@ -130,40 +131,16 @@ function constraintsOf(model: JointModel, observations: readonly JointObservatio
   return out;
 }
 
-/** Partials of one right-ascension row on the per-night instrument terms (joint units: ms, ms/day, mas). */
-function raInstrumentPartials(o: JointObservation): Record<'clockOffset' | SegmentableTerm, number> {
-  return {
-    clockOffset: -MAS_PER_MS * o.cosDec, clockRate: -MAS_PER_MS * o.cosDec * o.clockDtDays,
-    azimuth: -o.cosDec * o.mayerA, level: -o.cosDec * o.mayerB, collimation: -o.cosDec * o.mayerC, zeroPoint: 0,
-  };
+interface RowContext {
+  readonly model: JointModel; readonly nights: readonly JointNight[]; readonly observations: readonly JointObservation[]; readonly context: JointProblemContext;
+  readonly g: ReturnType<typeof globalLayout>; readonly l: ReturnType<typeof localLayout>;
+  readonly segments: readonly TermSegment[]; readonly nightSegment: Readonly<Record<SegmentableTerm, Int32Array>>;
+  readonly noTemperature: boolean; readonly diurnalMas: number; readonly raRow: Int32Array; readonly zenithRow: Int32Array;
 }
 
-const RA_SEGMENT_TERMS = ['clockRate', 'azimuth', 'level', 'collimation'] as const;
-
-/**
- * The linearised joint problem (DESIGN §4) in mas: row residuals are the nightly O − C, partials
- * ∂C/∂parameter. Right ascension: Δα*₀ 1, Δμα* (t − T₀), Δϖ −cos δ ∂H/∂ϖ, Δκ −cos δ ∂H/∂κ,
- * clock −15.041 cos δ per ms, a, b, c −cos δ × Mayer's factor (they enter the observed side);
- * temperature (T − T_ref) as a shift eastward on the sky; diurnal-aberration scale ±0.32″ cos φ
- * (common-terms.ts). Zenith distance: s = ∂z/∂δ on Δδ₀ and Δμδ (t − T₀), ∂z/∂ϖ, ∂z/∂κ, zero
- * point −1, flexure −sin z, refraction scale −R, latitude variation ∂z/∂φ × (cos, sin)(2πt/P).
- * A term held per segment (segment-terms.ts) is a global whose value is the term's whole value,
- * not a correction: the night's own value (partial × nightly) is added back to the row's O − C.
- */
-export function buildJointProblem(model: JointModel, stars: readonly StarListRow[], nights: readonly JointNight[], observations: readonly JointObservation[], context: JointProblemContext = {}): { problem: SolverProblem; layout: JointLayout } {
-  const names: string[] = [];
-  const notEstimated: string[] = [];
-  const g0 = globalLayout(model, stars, names);
-  const l = localLayout(model);
-  const { segments, nightSegment } = segmentTerms(model, nights, observations, context.events ?? [], names);
-  const g = g0;
-  const diurnalMas = diurnalAberrationMas(context.latitudeRad ?? 0, context.heightM ?? 0);
-  if (g.temperatureRa >= 0 && observations.every((o) => Math.abs(o.temperatureC - model.referenceTemperatureC) < 1e-9)) {
-    notEstimated.push('temperature coefficients: the archive records no temperatures (every transit at the reference temperature), so they were not estimated');
-  }
-  const rows = new ObservationRowsBuilder(observations.length * 2, 8);
-  const raRow = new Int32Array(observations.length).fill(-1), zenithRow = new Int32Array(observations.length).fill(-1);
-  const noTemperature = notEstimated.length > 0;
+/** One right-ascension row and (with a reading) one zenith-distance row per observation, with the partials buildJointProblem documents. */
+function writeObservationRows(rows: ObservationRowsBuilder, c: RowContext): void {
+  const { model, nights, observations, context, g, l, segments, nightSegment, noTemperature, diurnalMas, raRow, zenithRow } = c;
   const put = (index: number, partial: number): void => { if (index >= 0) rows.addGlobal(index, partial); };
   const putLocal = (index: number, partial: number): void => { if (index >= 0) rows.addLocal(index, partial); };
   const segmentOf = (term: SegmentableTerm, o: JointObservation): TermSegment | null => { const k = nightSegment[term][o.night]; return k >= 0 ? segments[k] : null; };
@@ -201,6 +178,42 @@ export function buildJointProblem(model: JointModel, stars: readonly StarListRow
     if (zeroSegment) putSegment(zeroSegment, o, -1);
     putLocal(l.zeroPoint, -1);
   });
+}
+
+/** Partials of one right-ascension row on the per-night instrument terms (joint units: ms, ms/day, mas). */
+function raInstrumentPartials(o: JointObservation): Record<'clockOffset' | SegmentableTerm, number> {
+  return {
+    clockOffset: -MAS_PER_MS * o.cosDec, clockRate: -MAS_PER_MS * o.cosDec * o.clockDtDays,
+    azimuth: -o.cosDec * o.mayerA, level: -o.cosDec * o.mayerB, collimation: -o.cosDec * o.mayerC, zeroPoint: 0,
+  };
+}
+
+const RA_SEGMENT_TERMS = ['clockRate', 'azimuth', 'level', 'collimation'] as const;
+
+/**
+ * The linearised joint problem (DESIGN §4) in mas: row residuals are the nightly O − C, partials
+ * ∂C/∂parameter. Right ascension: Δα*₀ 1, Δμα* (t − T₀), Δϖ −cos δ ∂H/∂ϖ, Δκ −cos δ ∂H/∂κ,
+ * clock −15.041 cos δ per ms, a, b, c −cos δ × Mayer's factor (they enter the observed side);
+ * temperature (T − T_ref) as a shift eastward on the sky; diurnal-aberration scale ±0.32″ cos φ
+ * (common-terms.ts). Zenith distance: s = ∂z/∂δ on Δδ₀ and Δμδ (t − T₀), ∂z/∂ϖ, ∂z/∂κ, zero
+ * point −1, flexure −sin z, refraction scale −R, latitude variation ∂z/∂φ × (cos, sin)(2πt/P).
+ * A term held per segment (segment-terms.ts) is a global whose value is the term's whole value,
+ * not a correction: the night's own value (partial × nightly) is added back to the row's O − C.
+ */
+export function buildJointProblem(model: JointModel, stars: readonly StarListRow[], nights: readonly JointNight[], observations: readonly JointObservation[], context: JointProblemContext = {}): { problem: SolverProblem; layout: JointLayout } {
+  const names: string[] = [];
+  const notEstimated: string[] = [];
+  const g = globalLayout(model, stars, names);
+  const l = localLayout(model);
+  const { segments, nightSegment } = segmentTerms(model, nights, observations, context.events ?? [], names);
+  const diurnalMas = diurnalAberrationMas(context.latitudeRad ?? 0, context.heightM ?? 0);
+  if (g.temperatureRa >= 0 && observations.every((o) => Math.abs(o.temperatureC - model.referenceTemperatureC) < 1e-9)) {
+    notEstimated.push('temperature coefficients: the archive records no temperatures (every transit at the reference temperature), so they were not estimated');
+  }
+  const rows = new ObservationRowsBuilder(observations.length * 2, 8);
+  const raRow = new Int32Array(observations.length).fill(-1), zenithRow = new Int32Array(observations.length).fill(-1);
+  const noTemperature = notEstimated.length > 0;
+  writeObservationRows(rows, { model, nights, observations, context, g, l, segments, nightSegment, noTemperature, diurnalMas, raRow, zenithRow });
   addSegmentPriorRows(rows, nights, observations, segments);
   const blockLocalCount = new Int32Array(2 * nights.length);
   for (let n = 0; n < nights.length; n++) { blockLocalCount[2 * n] = l.raLocalCount; blockLocalCount[2 * n + 1] = l.zeroPoint >= 0 ? 1 : 0; }
@@ -222,7 +235,7 @@ export function buildJointProblem(model: JointModel, stars: readonly StarListRow
     globalNames: names, blockLocalCount, rows: rows.finish(), priors, constraints, fixed,
     localName: (block, index) => `${nights[block >> 1]?.id ?? `night ${block >> 1}`} ${block % 2 === 0 ? localNames[index] : 'zero point (mas)'}`,
   };
-  return { problem, layout: { ...g, ...l, raRow, zenithRow, appliedConstraints: constraints.map((c) => c.label), diurnalAberrationMas: diurnalMas, diurnalHeld, segments, nightSegment, notEstimated } };
+  return { problem, layout: { ...g, ...l, raRow, zenithRow, appliedConstraints: constraints.map((c) => c.label), diurnalAberrationMas: diurnalMas, diurnalHeld, temperatureHeld: noTemperature, segments, nightSegment, notEstimated } };
 }
 
 /**

@@ -148,7 +148,7 @@ export function solvePrepared(prepared: PreparedArchive, model: JointModel, cont
   const stars = starResults(solution, layout, catalogue, observations);
   const [dk, sk] = value(solution, layout.deltaKappa, 1e-3);
   const [f, sf] = value(solution, layout.flexure, 1e-3);
-  const [tr, str] = value(solution, layout.temperatureRa, 1e-3), [td, std] = value(solution, layout.temperatureDec, 1e-3);
+  const [tr, str] = value(solution, layout.temperatureHeld ? -1 : layout.temperatureRa, 1e-3), [td, std] = value(solution, layout.temperatureHeld ? -1 : layout.temperatureDec, 1e-3);
   const [rs, srs] = value(solution, layout.refractionScale);
   const [ds, sds] = layout.diurnalHeld ? [null, null] : value(solution, layout.diurnalAberrationScale);
   const global = {

@@ -19,7 +19,7 @@ function cli(args: string[]) {
 beforeAll(async () => {
   archive = path.join(await mkdtemp(path.join(os.tmpdir(), 'ml-gross-')), 'archive');
   expect(cli(['simulate', '--seed', '5', '--years', '3', '--stars', '10', '--out', archive]).code).toBe(0);
-});
+}, 60_000); // the simulation alone took over 10 s on the shared 2-core machine
 
 describe('gross blunders', () => {
   it('screenGrossBlunders(usable, residual, limit) removes what lies beyond the limit from the median, even in a night of three', () => {
