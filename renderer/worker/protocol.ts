@@ -60,7 +60,8 @@ export function parseToWorker(message: unknown): ToWorker | string {
     // The task reads the model and selection as typed by the view; core checks the archive it reads.
     return { type: 'start', jobId: message.jobId, request: request as unknown as JointSolveRequest | SolveFingerprintRequest };
   }
-  if (request.kind === 'night-quality' && typeof request.databaseName === 'string') {
+  if (request.kind === 'night-quality') {
+    if (typeof request.databaseName !== 'string') return `start message for job ${message.jobId}: night-quality needs the archive's databaseName as a string`;
     return { type: 'start', jobId: message.jobId, request: { kind: 'night-quality', databaseName: request.databaseName } };
   }
   if (isExchangeKind(request.kind) && typeof request.databaseName === 'string') {
