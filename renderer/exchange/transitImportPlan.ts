@@ -1,6 +1,7 @@
 import type { InstrumentRecord, NightRecord, SiteRecord, TransitRecord } from '../../core/archive/records.ts';
 import type { Rejection } from '../../core/formats/parse-result.ts';
-import { parseTransitLog, type TransitLogRow } from '../../core/formats/transit-log.ts';
+import type { TransitLogRow } from '../../core/formats/transit-log.ts';
+import { parseTransitLogOnce } from './parsedLogCache.ts';
 import { mjdToCalendarDay } from '../../core/time/julian-date.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { applyColumnMapping, type ColumnMapping } from './columnMapping.ts';
@@ -63,7 +64,7 @@ export async function planTransitImport(
   const missingPrerequisites: string[] = [];
   if (lookups.starIdByCatalogueId.size === 0) missingPrerequisites.push('The archive holds no star list: import the star list (CSV) first, then this transit log.');
   if (lookups.instruments.size === 0) missingPrerequisites.push('The archive holds no site and instrument: import the site description (JSON) first, then this transit log.');
-  const parsed = parseTransitLog(applyColumnMapping(bytes, options.columnMapping), { fileName, knownStarIds: new Set(lookups.starIdByCatalogueId.keys()) });
+  const parsed = parseTransitLogOnce(applyColumnMapping(bytes, options.columnMapping), fileName, new Set(lookups.starIdByCatalogueId.keys()));
   clock?.lap('decode and parse');
   const rejected: Rejection[] = [...parsed.rejected];
   const transits: TransitRecord[] = [];

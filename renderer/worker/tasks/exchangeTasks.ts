@@ -11,6 +11,7 @@ import { beginImport, writeImport, type WriteImportOptions } from '../../exchang
 import { describeStorageError } from '../../exchange/describeStorageError.ts';
 import { tableCsvBytes } from '../../exchange/tableExports.ts';
 import { StageClock } from '../../exchange/stageClock.ts';
+import { forgetParsedLog } from '../../exchange/parsedLogCache.ts';
 import type { CsvTableName } from '../../../core/exchange-formats/archive-table-csv.ts';
 
 /** Hooks for the end-to-end tests only; the view sends them only when the page has `?test-hooks`. */
@@ -77,6 +78,8 @@ async function runIersImport(database: ArchiveDatabase, fileName: string, bytes:
 }
 
 async function runWith(database: ArchiveDatabase, request: ExchangeRequest, control: TaskControl): Promise<ExchangeResult> {
+  // The parse of a validated transit log is kept for the import that follows it, and for nothing else.
+  if (request.kind !== 'exchange-validate' && request.kind !== 'exchange-import') forgetParsedLog();
   switch (request.kind) {
     case 'exchange-validate':
       return { kind: request.kind, report: (await planImport(database, request.file, nowUtcIso())).report };
@@ -88,6 +91,7 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
       const importId = await beginImport(database, request.file.fileName, request.file.kind, nowUtcIso());
       const rowCounts = await writeImport(database, importId, plan.writes, control, nowUtcIso, writeOptions);
       clock.lap('write and commit');
+      forgetParsedLog();
       clock.log();
       return { kind: request.kind, report: plan.report, rowCounts };
     }
