@@ -11,6 +11,7 @@ import { parseTransitLog } from '../../core/formats/transit-log.ts';
 import { reduceObservingNight } from '../../core/reduction/reduce-observing-night.ts';
 import { ZENITH_CAMERA_ARCSEC_PER_PX, ZENITH_CAMERA_FIELD_RADIUS_DEG } from '../../core/simulate/invented-site.ts';
 import { simulateArchive, type SimulatedArchive } from '../../core/simulate/simulate-archive.ts';
+import { resolveSimulationOptions } from '../../core/simulate/simulation-options.ts';
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
@@ -59,6 +60,12 @@ describe('simulateArchive with zenithCameraStarCount > 0', () => {
     expect(common.length).toBeGreaterThan(plain.truth.nights.length / 2);
     for (const night of common) expect(withCamera.get(night.nightId)).toEqual(night);
     expect(archive.events.filter((e) => e.instrumentId === 'instrument-transit')).toEqual(plain.events);
+  });
+
+  it('refuses a zenith star count outside 0–60 or not whole, naming the option', () => {
+    expect(resolveSimulationOptions({}).zenithCameraStarCount).toBe(0);
+    expect(() => resolveSimulationOptions({ zenithCameraStarCount: 61 })).toThrow(/zenithCameraStarCount must be an integer in 0…60 \(got 61\)/);
+    expect(() => resolveSimulationOptions({ zenithCameraStarCount: 2.5 })).toThrow(/zenithCameraStarCount/);
   });
 
   it('round-trips through the archive folder with the camera geometry', () => {
