@@ -18,9 +18,14 @@ export async function demoSolveRecord(nights: number): Promise<{ record: Reducti
   const database = new ArchiveDatabase(name);
   await loadDemoIfFirstStart(database, async () => new Uint8Array(await readFile('assets/demo/demo-archive.mlbundle')), '2026-12-01T00:00:00.000Z');
   const all = await database.nights.orderBy('localDate').toArray();
-  const dropped = all.slice(nights).map((n) => n.id);
-  await database.nights.bulkDelete(dropped);
-  await database.transits.where('nightId').anyOf(dropped).delete();
+  // Keep the first nights by clearing and writing them back: deleting thousands of indexed rows
+  // one by one takes minutes in fake-indexeddb.
+  const kept = all.slice(0, nights);
+  const keptTransits = await database.transits.where('nightId').anyOf(kept.map((n) => n.id)).toArray();
+  await database.nights.clear();
+  await database.transits.clear();
+  await database.nights.bulkAdd(kept);
+  await database.transits.bulkAdd(keptTransits);
   const model = { ...DEFAULT_JOINT_MODEL, catalogueSigma: { default: { positionMas: 5, pmMasYr: 0.7 }, stars: {} } };
   const { reduction } = await runJointSolve({ kind: 'joint-solve', databaseName: name, label: 'Demo, first nights', model, selection: WHOLE_ARCHIVE, codeVersion: '0.1.0-test' }, UNCONTROLLED);
   return { record: reduction, database };
