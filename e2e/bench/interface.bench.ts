@@ -49,21 +49,32 @@ function smallSolve(): Record<string, unknown> {
   }
 }
 
+/** A browser on the benchmark's own profile folder, so each launch is a cold start on the same archive. */
+async function launch(profile: string): Promise<BrowserContext> {
+  const context = await chromium.launchPersistentContext(profile, { executablePath: CHROMIUM_EXECUTABLE, args: CHROMIUM_ARGS, viewport: { width: 1400, height: 1000 } });
+  // tsx compiles this file keeping function names (a call to __name around each named arrow),
+  // and the functions sent to page.evaluate carry those calls into the page: give it the helper.
+  await context.addInitScript({ content: 'globalThis.__name = globalThis.__name ?? ((fn) => fn);' });
+  return context;
+}
+
 /**
- * Navigation start → the view's control answered, per fresh page: waits (every frame) for the
- * control, uses it, and waits (every frame) for its answer; both times are the page's own clock
- * (performance.now(), whose zero is the navigation start).
+ * Navigation start → the view's control answered, per launch of the browser (closed and started
+ * again on the same profile, so no earlier page's work is still running): waits (every frame) for
+ * the control, uses it, and waits (every frame) for its answer; both times are the page's own
+ * clock (performance.now(), whose zero is the navigation start).
  */
-async function firstViewInteractive(context: BrowserContext, hash: string, use: (page: Page) => Promise<number>): Promise<{ ready: number; answered: number; domContentLoaded: number }[]> {
+async function firstViewInteractive(profile: string, hash: string, use: (page: Page) => Promise<number>): Promise<{ ready: number; answered: number; domContentLoaded: number }[]> {
   const runs = [];
   for (let k = 0; k < LAUNCHES; k++) {
-    const page = await context.newPage();
+    const context = await launch(profile);
+    const page = context.pages()[0] ?? (await context.newPage());
     await page.goto(`${BASE}?no-demo${hash}`, { waitUntil: 'commit' });
     const answered = await use(page);
     const domContentLoaded = await page.evaluate(() => (performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming).domContentLoadedEventEnd);
     runs.push({ ready: Number(await page.evaluate(() => (window as unknown as { __ready?: number }).__ready ?? NaN)), answered, domContentLoaded });
     console.log(`   (${hash} launch ${k + 1} of ${LAUNCHES}: answered at ${answered.toFixed(0)} ms)`);
-    await page.close();
+    await context.close();
   }
   return runs;
 }
@@ -158,12 +169,9 @@ async function typingTimes(page: Page): Promise<{ toText: number[]; toFrame: num
 
 async function main(): Promise<void> {
   const server = await preview({ configFile: 'renderer/vite.config.ts', preview: { host: '127.0.0.1', port: PORT, strictPort: true, open: false } });
-  const browser = await chromium.launch({ executablePath: CHROMIUM_EXECUTABLE, args: CHROMIUM_ARGS });
+  const profile = mkdtempSync(path.join(os.tmpdir(), 'ml-interface-profile-'));
+  let context = await launch(profile);
   try {
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-    // tsx compiles this file keeping function names (a call to __name around each named arrow),
-    // and the functions sent to page.evaluate carry those calls into the page: give it the helper.
-    await context.addInitScript({ content: 'globalThis.__name = globalThis.__name ?? ((fn) => fn);' });
     const page = await context.newPage();
     page.setDefaultTimeout(600_000);
     console.log(`Meridian Ledger interface benchmark — headless Chromium, ${os.cpus().length} cores, load average at start ${load()}`);
@@ -173,11 +181,11 @@ async function main(): Promise<void> {
     const solve = smallSolve();
     const seeded = await seedReduction(page, solve, RESIDUALS);
     console.log(`saved reduction with ${seeded.toLocaleString('en')} residuals seeded (untimed set-up)`);
-    await page.close();
+    await context.close();
 
     if (PARTS.has('first-view')) {
-      const tonight = await firstViewInteractive(context, '#/tonight', tonightAnswers);
-      const archive = await firstViewInteractive(context, '#/archive', archiveAnswers);
+      const tonight = await firstViewInteractive(profile, '#/tonight', tonightAnswers);
+      const archive = await firstViewInteractive(profile, '#/archive', archiveAnswers);
       console.log(`\nload average after the first views: ${load()}`);
       const report = (name: string, runs: { ready: number; answered: number; domContentLoaded: number }[]) => {
         console.log(`first view ${name}, navigation start → control answered: ${ms(summary(runs.map((r) => r.answered)))}   target < 1500 ms`);
@@ -186,6 +194,7 @@ async function main(): Promise<void> {
       report('Tonight (the default view)', tonight);
       report('Archive (every night marked)', archive);
     }
+    context = await launch(profile);
     if (PARTS.has('zoom')) {
       const signatures = await context.newPage();
       signatures.setDefaultTimeout(600_000);
@@ -211,7 +220,8 @@ async function main(): Promise<void> {
     console.log(`\nload average at the end: ${load()}`);
     if (TRANSITS < 1_000_000) console.log(`(BENCH_TRANSITS=${TRANSITS}: a smaller archive than the 1,000,000 of the targets)`);
   } finally {
-    await browser.close();
+    await context.close();
+    rmSync(profile, { recursive: true, force: true });
     await new Promise<void>((resolve) => server.httpServer.close(() => resolve()));
   }
 }
