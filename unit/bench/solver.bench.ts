@@ -229,4 +229,5 @@ export async function run(): Promise<void> {
     + ` ${GLOBALS + 357 * LOCALS} parameters ${(denseSeconds * 1000).toFixed(0)} ms: dense/block = ${(denseSeconds / blockSeconds).toFixed(1)} (wall, ${load()})`);
 }
 
-if (process.argv[1]?.endsWith("solver.bench.ts")) await run();
+// Run when this file is the entry point (also under tsx), not when a script imports benchProblem.
+if (process.argv[1]?.endsWith('solver.bench.ts')) await run();
