@@ -1,6 +1,7 @@
+import type { InstrumentRecord } from '../../core/archive/records.ts';
 import type { NightSummary } from './archiveQueries.ts';
 
-/** Where one night's mark goes in the years × day-of-year grid. */
+/** Where one night's mark goes in the years × instrument bands × day-of-year grid. */
 export interface NightMark {
   readonly summary: NightSummary;
   readonly year: number;
@@ -8,6 +9,23 @@ export interface NightMark {
   readonly dayOfYear: number;
   /** Colour step 0 … STEPS−1 by transit count. */
   readonly step: number;
+  /** Index into `bands`: the night's instrument's band within its year row. */
+  readonly band: number;
+}
+
+/** One instrument's band inside every year row, top to bottom in this order. */
+export interface InstrumentBand {
+  readonly instrumentId: string;
+  /** The instrument's label, or its id when the archive holds no visible record of it. */
+  readonly label: string;
+}
+
+export interface NightsLayout {
+  /** Marks in date order, nights of one date in band order: the order roving focus moves in. */
+  readonly marks: NightMark[];
+  readonly years: number[];
+  readonly limits: number[];
+  readonly bands: InstrumentBand[];
 }
 
 /** Number of colour steps in the overview. */
@@ -20,16 +38,39 @@ export function stepLimits(maxCount: number): number[] {
   return Array.from({ length: STEPS }, (_, index) => (index + 1) * width);
 }
 
-/** Lays the nights out by local date (`YYYY-MM-DD`) into year rows; years without nights are kept. */
-export function layoutNights(nights: readonly NightSummary[]): { marks: NightMark[]; years: number[]; limits: number[] } {
-  const limits = stepLimits(Math.max(0, ...nights.map((n) => n.transitCount)));
+/**
+ * The bands: every instrument that has a night, in the order of `instruments` (the archive's
+ * instruments by label), then instruments known only from nights, by id.
+ */
+function bandsOf(nights: readonly NightSummary[], instruments: readonly Pick<InstrumentRecord, 'id' | 'label'>[]): InstrumentBand[] {
+  const used = new Set(nights.map((n) => n.night.instrumentId));
+  const bands: InstrumentBand[] = instruments.filter((i) => used.has(i.id)).map((i) => ({ instrumentId: i.id, label: i.label }));
+  const known = new Set(bands.map((b) => b.instrumentId));
+  for (const id of [...used].filter((u) => !known.has(u)).sort()) bands.push({ instrumentId: id, label: id });
+  return bands;
+}
+
+/**
+ * Lays the nights out by local date (`YYYY-MM-DD`) into year rows, one band per instrument in
+ * each row, so that two instruments' nights of one date never hide each other; years without
+ * nights are kept. Marks come out sorted by date, then band.
+ */
+export function layoutNights(nights: readonly NightSummary[], instruments: readonly Pick<InstrumentRecord, 'id' | 'label'>[] = []): NightsLayout {
+  let maxCount = 0;
+  for (const n of nights) maxCount = Math.max(maxCount, n.transitCount);
+  const limits = stepLimits(maxCount);
+  const bands = bandsOf(nights, instruments);
+  const bandOf = new Map(bands.map((b, index) => [b.instrumentId, index]));
   const marks = nights.map((summary) => {
     const [year, month, day] = summary.night.localDate.split('-').map(Number);
     const dayOfYear = (Date.UTC(year, month - 1, day) - Date.UTC(year, 0, 1)) / MS_PER_DAY;
     const step = limits.findIndex((limit) => summary.transitCount <= limit);
-    return { summary, year, dayOfYear, step: step < 0 ? STEPS - 1 : step };
+    return { summary, year, dayOfYear, step: step < 0 ? STEPS - 1 : step, band: bandOf.get(summary.night.instrumentId) ?? 0 };
   });
-  const found = marks.map((mark) => mark.year);
-  const years = found.length === 0 ? [] : Array.from({ length: Math.max(...found) - Math.min(...found) + 1 }, (_, i) => Math.min(...found) + i);
-  return { marks, years, limits };
+  marks.sort((a, b) => (a.summary.night.localDate < b.summary.night.localDate ? -1 : a.summary.night.localDate > b.summary.night.localDate ? 1 : a.band - b.band));
+  let low = Infinity;
+  let high = -Infinity;
+  for (const mark of marks) { low = Math.min(low, mark.year); high = Math.max(high, mark.year); }
+  const years = marks.length === 0 ? [] : Array.from({ length: high - low + 1 }, (_, i) => low + i);
+  return { marks, years, limits, bands };
 }
