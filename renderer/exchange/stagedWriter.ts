@@ -17,9 +17,6 @@ function tableOf(database: ArchiveDatabase, name: ImportableTableName): Table {
  */
 export const WRITE_CHUNK_ROWS = 10_000;
 
-/** Kept for callers that size test files by it: the rows between two progress reports. */
-export const STAGE_CHUNK_ROWS = WRITE_CHUNK_ROWS;
-
 /** New rows to create per table, and rows that replace existing visible ones. */
 export interface ImportWrites {
   readonly created: Partial<Record<ImportableTableName, readonly object[]>>;
