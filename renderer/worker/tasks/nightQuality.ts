@@ -1,4 +1,4 @@
-import type { NightRecord, TransitRecord } from '../../../core/archive/records.ts';
+import type { NightRecord } from '../../../core/archive/records.ts';
 import { DEFAULT_JOINT_MODEL } from '../../../core/joint/joint-model.ts';
 import { TaskCancelledError, type TaskControl } from '../../../core/task/task-control.ts';
 import { bundledEarthOrientationTable } from '../../../core/time/bundled-earth-orientation.ts';
@@ -6,7 +6,8 @@ import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts
 import { TimeScale } from '../../../core/time/timescale.ts';
 import type { NightQuality } from '../../archive/nightQuality.ts';
 import { NightQualityCache } from '../../archive/nightQualityCache.ts';
-import { archiveContextKey, nightQualityKey } from '../../archive/nightQualityKey.ts';
+import { archiveContextKey } from '../../archive/nightQualityKey.ts';
+import { NightChangeLedger, nightStampKey, readNightStamps } from '../../archive/nightQualityStamps.ts';
 import { reduceStoredNights } from '../../archive/reduceStoredNights.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
 
@@ -33,18 +34,23 @@ export const NIGHT_QUALITY_CHUNK = 20;
  * cancel. Not persisted: the results are derived data, rebuilt in the background in a few
  * minutes at most, and keeping them out of the schema keeps them out of bundles and backups.
  */
-const CACHES = new Map<string, NightQualityCache>();
+const CACHES = new Map<string, { readonly cache: NightQualityCache; readonly ledger: NightChangeLedger }>();
+
+function sessionOf(databaseName: string): { readonly cache: NightQualityCache; readonly ledger: NightChangeLedger } {
+  let session = CACHES.get(databaseName);
+  if (session === undefined) CACHES.set(databaseName, (session = { cache: new NightQualityCache(), ledger: new NightChangeLedger() }));
+  return session;
+}
 
 export function nightQualityCache(databaseName: string): NightQualityCache {
-  let cache = CACHES.get(databaseName);
-  if (cache === undefined) CACHES.set(databaseName, (cache = new NightQualityCache()));
-  return cache;
+  return sessionOf(databaseName).cache;
 }
 
 let timeScale: TimeScale | null = null;
 
 /**
- * Reduces every visible night of the archive whose change key (nightQualityKey.ts) is not in the
+ * Reduces every visible night of the archive whose change key (nightStampKey: context, night
+ * record, transit count, last edit or import commit; no transit body read) is not in the
  * cache, in chunks of NIGHT_QUALITY_CHUNK nights with progress in nights, and returns every
  * night's quality. A cancel is seen between chunks; the nights done by then stay cached.
  */
@@ -52,23 +58,23 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
   const database = new ArchiveDatabase(request.databaseName);
   try {
     const visible = <T extends { readonly visibility: string }>(rows: readonly T[]): T[] => rows.filter((r) => r.visibility === 'visible');
-    const [sites, instruments, events, stars, nights, transits] = await Promise.all([
+    const [sites, instruments, events, stars, nights] = await Promise.all([
       database.sites.toArray(), database.instruments.toArray(), database.instrumentEvents.toArray(),
-      database.stars.toArray(), database.nights.toArray(), database.transits.toArray(),
-    ]).then(([a, b, c, d, e, f]) => [visible(a), visible(b), visible(c), visible(d), visible(e), visible(f)] as const);
-    const cache = nightQualityCache(request.databaseName);
-    const byNight = new Map<string, TransitRecord[]>();
-    for (const t of transits) {
-      const list = byNight.get(t.nightId);
-      if (list === undefined) byNight.set(t.nightId, [t]);
-      else list.push(t);
-    }
+      database.stars.toArray(), database.nights.toArray(),
+    ]).then(([a, b, c, d, e]) => [visible(a), visible(b), visible(c), visible(d), visible(e)] as const);
+    const { cache, ledger } = sessionOf(request.databaseName);
     if (sites.length !== 1) {
       const reason = `the archive holds ${sites.length} visible sites; the nightly reduction reads one site (merge or remove sites first)`;
       return { kind: 'night-quality', reused: 0, reduced: 0, nights: nights.map((n) => ({ nightId: n.id, key: '', reduced: false, unitWeightError: null, unitWeightErrorTime: null, unitWeightErrorZenith: null, transitsUsed: 0, transitsRejected: 0, transitsUserRejected: 0, failure: reason })) };
     }
     const contextKey = archiveContextKey(sites[0], instruments, stars);
-    const keys = new Map(nights.map((n) => [n.id, nightQualityKey(contextKey, n, byNight.get(n.id) ?? [])]));
+    let stamps = await readNightStamps(database, nights, ledger);
+    if (stamps.rewritten) {
+      cache.retainOnly(new Set());
+      ledger.clear();
+      stamps = await readNightStamps(database, nights, ledger);
+    }
+    const keys = new Map(nights.map((n) => [n.id, nightStampKey(contextKey, n, stamps.counts.get(n.id) ?? 0, ledger.touched.get(n.id) ?? '')]));
     const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined);
     cache.retainOnly(new Set(keys.keys()));
     timeScale ??= new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
@@ -78,8 +84,10 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
       await control.yieldToHost();
       if (control.cancellation.isCancelled) throw new TaskCancelledError('the nightly reductions of the overview', start);
       const chunk = stale.slice(start, start + NIGHT_QUALITY_CHUNK);
+      // Only the stale nights' transits are read, through the nightId index.
+      const transits = visible(await database.transits.where('nightId').anyOf(chunk.map((n) => n.id)).toArray());
       const results = await reduceStoredNights({
-        site: sites[0], instruments, events, stars, nights: chunk, transits: chunk.flatMap((n) => byNight.get(n.id) ?? []),
+        site: sites[0], instruments, events, stars, nights: chunk, transits,
       }, { timeScale, apriori, keys });
       for (const result of results) cache.set(result);
       control.reportProgress(Math.min(stale.length, start + chunk.length), stale.length);
