@@ -14,8 +14,9 @@ async function openArchiveWithDemo(page: Page): Promise<number> {
   return count;
 }
 
-// Each mark's name: "Night of DATE, N transits, <unit-weight error or why there is none>".
-const marks = (page: Page) => page.getByRole('button', { name: /^Night of \d{4}-\d{2}-\d{2}, \d+ transits, / });
+// Each mark's name: "Night of DATE, N transits with INSTRUMENT, <unit-weight error or why there is none>".
+const escaped = (text: string) => text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+const marks = (page: Page) => page.getByRole('button', { name: /^Night of \d{4}-\d{2}-\d{2}, \d+ transits with [^,]+, / });
 
 test('the overview shows one mark per demo night and opens a night by keyboard and by click', async ({ page }) => {
   const nights = await openArchiveWithDemo(page);
@@ -30,21 +31,36 @@ test('the overview shows one mark per demo night and opens a night by keyboard a
   await page.keyboard.press('Enter');
   const date = /Night of (\S+),/.exec(second ?? '')?.[1] ?? 'no date';
   await expect(page.getByRole('heading', { name: new RegExp(`^Night of ${date}`) })).toBeVisible();
-  const count = Number(/(\d+) transits,/.exec(second ?? '')?.[1]);
+  const count = Number(/(\d+) transits with /.exec(second ?? '')?.[1]);
   await expect(page.getByText(`${count} transits, in time order`)).toBeVisible();
   await expect(page.locator('section[aria-labelledby="night-heading"] tbody tr')).toHaveCount(count);
 
-  // Click: a later night.
-  const target = marks(page).nth(400);
-  const label = await target.getAttribute('aria-label');
-  await target.dispatchEvent('click'); // on the mark itself: another instrument's night of the same date may lie on top
-  const clickedDate = /Night of (\S+),/.exec(label ?? '')?.[1] ?? 'no date';
-  await expect(page.getByRole('heading', { name: new RegExp(`^Night of ${clickedDate}`) })).toBeVisible();
+  // Click: a date both instruments observed; each instrument's mark has its own band and opens its own night.
+  const labels = await marks(page).evaluateAll((rects) => rects.map((r) => r.getAttribute('aria-label') ?? ''));
+  const parse = (text: string) => /^Night of (\S+), \d+ transits with ([^,]+),/.exec(text)?.slice(1) ?? ['', ''];
+  const byDate = new Map<string, string[]>();
+  for (const [date, instrument] of labels.map(parse)) byDate.set(date, [...(byDate.get(date) ?? []), instrument]);
+  const shared = [...byDate].filter(([, instruments]) => new Set(instruments).size >= 2);
+  expect(shared.length, 'dates observed with both instruments').toBeGreaterThan(10);
+  const [sharedDate, instruments] = shared[Math.floor(shared.length / 2)];
+  for (const instrument of instruments) {
+    const mark = page.getByRole('button', { name: new RegExp(`^Night of ${sharedDate}, \\d+ transits with ${escaped(instrument)},`) });
+    await mark.click();
+    await expect(page.getByRole('heading', { name: new RegExp(`^Night of ${sharedDate} · ${escaped(instrument)}`) })).toBeVisible();
+    await expect(mark).toHaveClass(/selected/);
+  }
+  // Keyboard order: date order, then instrument (band) order, through every mark.
+  const dates = labels.map((l) => parse(l)[0]);
+  expect(dates).toEqual([...dates].sort());
+  // The bands are named: in full above the chart, in short at the left of every year row.
+  for (const instrument of new Set(instruments)) await expect(page.locator('figure.overview p.bands')).toContainText(instrument);
+  const bandLabels = await page.locator('figure.overview text.band-label').evaluateAll((ts) => ts.map((t) => t.firstChild?.textContent ?? ''));
+  expect(new Set(bandLabels).size).toBe(new Set(instruments).size);
 });
 
 test('reject a transit and undo it; the audit trail names the editor', async ({ page }) => {
   await openArchiveWithDemo(page);
-  await marks(page).nth(10).dispatchEvent('click');
+  await marks(page).nth(10).click();
   const firstReject = page.getByRole('button', { name: /^Reject / }).first();
   const name = (await firstReject.getAttribute('aria-label')) ?? '';
   // Without a name the edit is refused with a message.
@@ -101,7 +117,7 @@ test('add an instrument event (validated) and see it in the list; star list show
   await expect(counts).not.toHaveCount(0);
   const total = (await counts.allTextContents()).map(Number).reduce((sum, value) => sum + value, 0);
   const perNight = (await marks(page).evaluateAll((gs) => gs.map((g) => g.getAttribute('aria-label') ?? '')))
-    .map((label) => Number(/, (\d+) transits,/.exec(label)?.[1])).reduce((sum, value) => sum + value, 0);
+    .map((label) => Number(/, (\d+) transits with /.exec(label)?.[1])).reduce((sum, value) => sum + value, 0);
   expect(total).toBe(perNight);
   expect(total).toBeGreaterThan(5000);
 });
@@ -115,10 +131,10 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   const nights = await openArchiveWithDemo(page);
   // The first pass reduces every night in the worker, with progress the page stays usable during.
   await expect(page.getByText(/^Reducing nights for the overview/)).toBeVisible();
-  await marks(page).nth(5).dispatchEvent('click');
+  await marks(page).nth(5).click();
   await expect(page.getByRole('heading', { name: /^Night of \d{4}-/ })).toBeVisible({ timeout: 5_000 });
   await expect(page.getByText(`Reduced ${nights} nights; 0 unchanged from the last pass.`)).toBeVisible({ timeout: 240_000 });
-  const classes = await page.locator('g.mark').evaluateAll((gs) => gs.map((g) => [g.getAttribute('data-night-id') ?? '', g.getAttribute('data-uwe-class') ?? ''] as const));
+  const classes = await page.locator('rect.mark').evaluateAll((gs) => gs.map((g) => [g.getAttribute('data-night-id') ?? '', g.getAttribute('data-uwe-class') ?? ''] as const));
   expect(classes).toHaveLength(nights);
   const clean = classes.filter(([id]) => !BLUNDER_NIGHTS.has(id)).map(([, c]) => c);
   const planted = classes.filter(([id]) => BLUNDER_NIGHTS.has(id));
@@ -132,12 +148,12 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   expect(share(planted.map(([, c]) => c))).toBeGreaterThan(share(clean));
   const [worstId, worstClass] = planted.filter(([, c]) => c !== 'not-reduced').sort((a, b) => Number(b[1]) - Number(a[1]))[0];
   expect(Number(worstClass)).toBeGreaterThan(Number(commonest));
-  const blunder = page.locator(`g.mark[data-night-id="${worstId}"]`);
-  await expect(blunder).toHaveAttribute('aria-label', /^Night of \d{4}-\d\d-\d\d, \d+ transits, unit-weight error \d+\.\d\d$/);
+  const blunder = page.locator(`rect.mark[data-night-id="${worstId}"]`);
+  await expect(blunder).toHaveAttribute('aria-label', /^Night of \d{4}-\d\d-\d\d, \d+ transits with [^,]+, unit-weight error \d+\.\d\d$/);
   for (const label of ['below 1.2', '1.2 to 2', '2 to 5', '5 and above', 'not reduced']) await expect(page.locator('figcaption.legend')).toContainText(label);
 
   // The night detail repeats it; day and night screenshots; the red theme shows no green or blue.
-  await blunder.dispatchEvent('click');
+  await blunder.click();
   await expect(page.getByTestId('night-quality')).toContainText(/unit-weight error \d+\.\d\d \(right ascension/);
   await page.screenshot({ path: 'e2e-output/screenshots/day-archive-uwe.png', fullPage: true });
   await page.locator('figure.overview').screenshot({ path: 'e2e-output/screenshots/day-archive-uwe-overview.png' });
@@ -151,9 +167,9 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   // Back to transit counts and again, by keyboard.
   await page.getByRole('button', { name: 'Transit count', exact: true }).press('Enter');
   await expect(page.getByText('Colour: transits in the night')).toBeVisible();
-  await expect(page.locator('g.mark rect.uwe')).toHaveCount(0);
+  await expect(page.locator('rect.mark.uwe')).toHaveCount(0);
   await page.getByRole('button', { name: 'Unit-weight error', exact: true }).press('Enter');
-  await expect(page.locator('g.mark rect.uwe')).not.toHaveCount(0);
+  await expect(page.locator('rect.mark.uwe')).not.toHaveCount(0);
 
   // Rejecting a transit reduces that night only (the others come from the worker's cache).
   await page.getByLabel('Edits recorded as').fill('R. Vance');
@@ -165,7 +181,7 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
 
 test('screenshots of the Archive with the demo, day and night; night shows no green or blue', async ({ page }) => {
   await openArchiveWithDemo(page);
-  await marks(page).nth(200).dispatchEvent('click');
+  await marks(page).nth(200).click();
   await page.screenshot({ path: 'e2e-output/screenshots/day-archive-demo.png', fullPage: true });
   await page.getByRole('button', { name: 'Night (red)' }).click();
   await marks(page).nth(201).focus();

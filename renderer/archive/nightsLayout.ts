@@ -18,6 +18,8 @@ export interface InstrumentBand {
   readonly instrumentId: string;
   /** The instrument's label, or its id when the archive holds no visible record of it. */
   readonly label: string;
+  /** The label without the words every band's label shares at its start and end (the site's name, say). */
+  readonly shortLabel: string;
 }
 
 export interface NightsLayout {
@@ -44,10 +46,27 @@ export function stepLimits(maxCount: number): number[] {
  */
 function bandsOf(nights: readonly NightSummary[], instruments: readonly Pick<InstrumentRecord, 'id' | 'label'>[]): InstrumentBand[] {
   const used = new Set(nights.map((n) => n.night.instrumentId));
-  const bands: InstrumentBand[] = instruments.filter((i) => used.has(i.id)).map((i) => ({ instrumentId: i.id, label: i.label }));
-  const known = new Set(bands.map((b) => b.instrumentId));
-  for (const id of [...used].filter((u) => !known.has(u)).sort()) bands.push({ instrumentId: id, label: id });
-  return bands;
+  const named = instruments.filter((i) => used.has(i.id)).map((i) => ({ instrumentId: i.id, label: i.label }));
+  const known = new Set(named.map((b) => b.instrumentId));
+  for (const id of [...used].filter((u) => !known.has(u)).sort()) named.push({ instrumentId: id, label: id });
+  const short = shortLabels(named.map((b) => b.label));
+  return named.map((b, index) => ({ ...b, shortLabel: short[index] }));
+}
+
+/**
+ * The labels without the whole words all of them share at the start and at the end
+ * ("Hill transit (x)", "Hill camera (x)" → "transit", "camera"); a label left empty, or a single
+ * label, stays whole.
+ */
+export function shortLabels(labels: readonly string[]): string[] {
+  if (labels.length < 2) return [...labels];
+  const words = labels.map((l) => l.split(/\s+/).filter((w) => w !== ''));
+  const shortest = Math.min(...words.map((w) => w.length));
+  let head = 0;
+  while (head < shortest - 1 && words.every((w) => w[head] === words[0][head])) head++;
+  let tail = 0;
+  while (tail < shortest - head - 1 && words.every((w) => w[w.length - 1 - tail] === words[0][words[0].length - 1 - tail])) tail++;
+  return words.map((w, index) => w.slice(head, w.length - tail).join(' ') || labels[index]);
 }
 
 /**

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { layoutNights, stepLimits, STEPS } from '../../renderer/archive/nightsLayout.ts';
+import { layoutNights, shortLabels, stepLimits, STEPS } from '../../renderer/archive/nightsLayout.ts';
 import { nightRow } from '../store/rowFactories.ts';
 
 const summary = (id: string, localDate: string, transitCount: number) => ({ night: nightRow(id, { localDate }), transitCount });
@@ -27,7 +27,14 @@ describe('nightsLayout', () => {
     const instruments = [{ id: 'zc', label: 'Zenith camera' }, { id: 'mt', label: 'Meridian circle' }, { id: 'unused', label: 'Spare' }];
     const { marks, bands } = layoutNights([on('m2', '2024-05-02', 'mt'), on('z1', '2024-05-01', 'zc'), on('m1', '2024-05-01', 'mt'), on('x', '2024-05-01', 'ghost')], instruments);
     // Bands follow the given instrument order; an instrument without a night gets none; an unknown id is named by its id, last.
-    expect(bands).toEqual([{ instrumentId: 'zc', label: 'Zenith camera' }, { instrumentId: 'mt', label: 'Meridian circle' }, { instrumentId: 'ghost', label: 'ghost' }]);
+    expect(bands).toEqual([{ instrumentId: 'zc', label: 'Zenith camera', shortLabel: 'Zenith camera' }, { instrumentId: 'mt', label: 'Meridian circle', shortLabel: 'Meridian circle' }, { instrumentId: 'ghost', label: 'ghost', shortLabel: 'ghost' }]);
     expect(marks.map((m) => [m.summary.night.id, m.band, m.dayOfYear])).toEqual([['z1', 0, 121], ['m1', 1, 121], ['x', 2, 121], ['m2', 1, 122]]);
+  });
+
+  test('shortLabels drops the words all labels share at the start and end, never a whole label', () => {
+    expect(shortLabels(['Hill Top meridian transit (x)', 'Hill Top zenith camera (x)'])).toEqual(['meridian transit', 'zenith camera']);
+    expect(shortLabels(['Hill transit', 'Hill transit 2'])).toEqual(['transit', 'transit 2']);
+    expect(shortLabels(['Same', 'Same'])).toEqual(['Same', 'Same']);
+    expect(shortLabels(['Only one (x)'])).toEqual(['Only one (x)']);
   });
 });
