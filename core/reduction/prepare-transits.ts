@@ -10,6 +10,8 @@ import type { MayerFactors } from '../instrument/mayer.ts';
 import { reduceToMeanWire } from '../instrument/wire-reduction.ts';
 import type { MeanWireReduction } from '../instrument/wire-reduction.ts';
 import { ARCSEC, DEG, SECONDS_PER_DAY } from '../units.ts';
+import { cameraGeometryOf, reduceCameraTransit } from './camera-crossing.ts';
+import type { CameraTransitReading } from './camera-crossing.ts';
 import { clockCorrectionAtS, nominalClockSeconds } from './night-clock.ts';
 import type { NightClockModel } from './night-clock.ts';
 import type { NightWeather } from './night-inputs.ts';
@@ -89,6 +91,18 @@ export function wireSeconds(row: TransitLogRow, nightDateMjd: number): { wireInd
     : row.times.wires.map((w) => ({ wireIndex: w.wireIndex, clockTimeS: w.clockS }));
 }
 
+/** A fixed camera's transit through its geometry (camera-crossing.ts); throws with the reason. */
+function cameraTransit(row: TransitLogRow, wires: { wireIndex: number; clockTimeS: number }[], instrument: InstrumentRecord, prediction: StarPrediction, clockScale: 'sidereal' | 'mean-solar'): CameraTransitReading {
+  if (row.zenithReading !== null && row.zenithReading.unit !== 'px') throw new RangeError(`a fixed camera reads row offsets in pixels (offsetPx), not ${row.zenithReading.unit === 'turns' ? 'micrometerTurns' : 'zenithDistanceDeg'}`);
+  const geometry = cameraGeometryOf(instrument);
+  // ∂z/∂δ on the meridian (zenith-distance.ts): upper culmination −1 south of the zenith, +1 north; lower the reverse.
+  const north = prediction.side === 'north';
+  const zenithPerDeclination = (row.culmination === 'upper') === north ? 1 : -1;
+  // cameraGeometryOf has checked that the pixel scale exists.
+  const sense = instrument.zenithScale?.sense ?? 1;
+  return reduceCameraTransit(wires, row.zenithReading?.value ?? null, geometry, sense, prediction.topocentricDecRad, row.culmination, zenithPerDeclination, clockScale);
+}
+
 function prepareOne(row: TransitLogRow, ctx: PrepareContext, problems: { column: string; reason: string }[]): PreparedTransit | null {
   const star = ctx.stars.get(row.starId);
   if (star === undefined) {
@@ -106,7 +120,8 @@ function prepareOne(row: TransitLogRow, ctx: PrepareContext, problems: { column:
       problems.push({ column: wireColumn(row, w.wireIndex), reason: `wire ${w.wireIndex + 1} does not exist: instrument '${instrument.id}' has ${instrument.wireIntervalsS.length} wire intervals` });
     }
   }
-  const zenithFromReadingRad = zenithFromReading(row, instrument, problems);
+  const camera = instrument.kind === 'fixed-camera' && instrument.camera !== null;
+  const readingRad = camera ? null : zenithFromReading(row, instrument, problems);
   if (problems.length > 0) return null;
   const firstNominal = nominalClockSeconds(wires[0].clockTimeS, clockScale);
   const roughUtcS = row.times.kind === 'utc' ? firstNominal : firstNominal + clockCorrectionAtS(ctx.aprioriClock, firstNominal);
@@ -120,10 +135,17 @@ function prepareOne(row: TransitLogRow, ctx: PrepareContext, problems: { column:
   const prediction = ctx.predictions.nearest(star, row.culmination, roughUtcS);
   const intervals = instrument.wireIntervalsS.length === 0 ? [0] : instrument.wireIntervalsS;
   let meanWire: MeanWireReduction;
+  let zenithFromReadingRad = readingRad;
   try {
-    meanWire = reduceToMeanWire(wires, intervals, prediction.topocentricDecRad, row.culmination, row.clamp, clockScale);
+    if (camera) {
+      const reduced = cameraTransit(row, wires, instrument, prediction, clockScale);
+      meanWire = reduced.meanWire;
+      zenithFromReadingRad = reduced.zenithFromReadingRad;
+    } else {
+      meanWire = reduceToMeanWire(wires, intervals, prediction.topocentricDecRad, row.culmination, row.clamp, clockScale);
+    }
   } catch (error) {
-    problems.push({ column: wireColumn(row, wires[0].wireIndex), reason: (error as Error).message });
+    problems.push({ column: camera && row.zenithReading?.unit !== 'px' ? 'offsetPx' : wireColumn(row, wires[0].wireIndex), reason: (error as Error).message });
     return null;
   }
   return {
