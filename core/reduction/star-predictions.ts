@@ -1,4 +1,3 @@
-import { earthState } from '../astrometry/earth-state.ts';
 import { iauEarthOrientation } from '../astrometry/iau-earth-orientation.ts';
 import { createNightContext, type NightContext } from '../astrometry/night-context.ts';
 import { observedPlace, type ObservedPlace } from '../astrometry/observed-place.ts';
@@ -15,6 +14,7 @@ import type { InstantFromUtc } from '../astrometry/transit.ts';
 import type { StarListRow } from '../formats/star-list.ts';
 import type { Culmination } from '../instrument/culmination.ts';
 import { DEG, SECONDS_PER_DAY } from '../units.ts';
+import { NightSlowTerms } from './night-slow-terms.ts';
 
 /** Half a sidereal day in UT1 seconds: the search window on either side of a rough time. */
 const HALF_SIDEREAL_DAY_S = 43_082.045;
@@ -57,8 +57,9 @@ export function catalogueStarOf(row: StarListRow): CatalogueStar {
  * computed once per night. Refraction is applied by the reduction per observation, not here.
  * The transit instant is found on the night's batch context (night-context.ts: Earth state and
  * orientation once per half day, the reduction kernel per step) and the place evaluated once
- * with the full model there, which costs about a fifth of predictTransit's search (4–5 full
- * evaluations); when the full model's hour angle there is off the meridian by more than 2 mas the
+ * with the full model there, its nutation and Earth state interpolated over the half day
+ * (night-slow-terms.ts, < 1 µas) while precession, Earth rotation, UT1 and polar motion are taken
+ * at the instant itself: those two slow terms were four fifths of the per-transit cost; when the full model's hour angle there is off the meridian by more than 2 mas the
  * full search runs instead, so the result is predictTransit's to 0.14 ms of time.
  */
 export class NightPredictions {
@@ -66,7 +67,7 @@ export class NightPredictions {
   private readonly motions = new Map<string, StarMotion>();
   private readonly packed = new Map<string, Float64Array>();
   /** Batch contexts by half-day bucket of UTC (centre of the bucket, ±0.5 day served). */
-  private readonly contexts = new Map<number, NightContext>();
+  private readonly contexts = new Map<number, { context: NightContext; slow: NightSlowTerms }>();
   private readonly starIndex = new Int32Array(1);
   private readonly tt = new Float64Array(1);
   private readonly out = new Float64Array(RESULT_STRIDE);
@@ -109,18 +110,19 @@ export class NightPredictions {
     return { days: instant.tt.jd1 - 2_451_545 + instant.tt.jd2, instant };
   }
 
-  private contextFor(utcS: number): NightContext {
+  private contextFor(utcS: number): { context: NightContext; slow: NightSlowTerms } {
     const bucket = Math.floor(utcS / 43_200);
-    let context = this.contexts.get(bucket);
-    if (context === undefined) {
+    let entry = this.contexts.get(bucket);
+    if (entry === undefined) {
       const centreUtc = { jd1: 2_400_000.5 + this.nightDateMjd, jd2: ((bucket + 0.5) * 43_200) / SECONDS_PER_DAY };
       const centre = this.instantFromUtc(centreUtc);
       // UTC − TT is constant within the context's day but across a leap second, where the full-model check below catches any error.
       const utcOf = (tt: { jd1: number; jd2: number }) => ({ jd1: centreUtc.jd1, jd2: centreUtc.jd2 + (tt.jd1 - centre.tt.jd1) + (tt.jd2 - centre.tt.jd2) });
-      context = createNightContext({ centreTt: centre.tt, halfWidthDays: 0.5, site: this.site, weather: null, instantFromTt: (tt) => this.instantFromUtc(utcOf(tt)) });
-      this.contexts.set(bucket, context);
+      const context = createNightContext({ centreTt: centre.tt, halfWidthDays: 0.5, site: this.site, weather: null, instantFromTt: (tt) => this.instantFromUtc(utcOf(tt)) });
+      entry = { context, slow: new NightSlowTerms(centre.tt, 0.5) };
+      this.contexts.set(bucket, entry);
     }
-    return context;
+    return entry;
   }
 
   /** Newton on the batch context's hour angle, then one full-model place; null when that place is off the meridian by more than ACCEPT_HOUR_ANGLE_RAD. */
@@ -128,7 +130,7 @@ export class NightPredictions {
     let packed = this.packed.get(star.id);
     if (packed === undefined) { packed = prepareStars([catalogueStarOf(star)]); this.packed.set(star.id, packed); }
     const target = culmination === 'upper' ? 0 : Math.PI;
-    const context = this.contextFor(roughUtcS);
+    const { context, slow } = this.contextFor(roughUtcS);
     let utcS = roughUtcS;
     for (let i = 0; i < 6; i++) {
       this.tt[0] = this.ttDays(utcS).days;
@@ -139,7 +141,9 @@ export class NightPredictions {
       if (Math.abs(stepS) < 1e-5) break;
     }
     const { days, instant } = this.ttDays(utcS);
-    const place = observedPlace(placeContext(days, earthState(instant.tt), iauEarthOrientation(instant), this.site, null), motion);
+    if (!slow.covers(instant.tt)) return null;
+    const { nutation, earth } = slow.at(instant.tt);
+    const place = observedPlace(placeContext(days, earth, iauEarthOrientation(instant, nutation, slow.complementaryTermsRad), this.site, null), motion);
     if (Math.abs(wrapToPi(place.topocentricHourAngleRad - target)) > ACCEPT_HOUR_ANGLE_RAD) return null;
     return { utcS, place, warnings: [...(instant.warnings ?? []), ...place.warnings] };
   }
