@@ -1,4 +1,5 @@
 import { encodeFolderFiles, writeArchiveFolder, type ArchiveContent } from '../../core/archive-folder/archive-folder.ts';
+import { keyedByCatalogueId } from '../store/keyedByCatalogueId.ts';
 import { nightKey, readSolveInputs, type SolveInputs } from '../../core/joint/solve-inputs.ts';
 import type { NightRecord } from '../../core/archive/records.ts';
 import { defaultNightConfiguration, type NightReductionInput } from '../../core/reduction/night-inputs.ts';
@@ -62,7 +63,7 @@ async function reduceOne(inputs: SolveInputs, night: NightRecord, rows: readonly
  * marks only its own night.
  */
 export async function reduceStoredNights(content: ArchiveContent, ctx: StoredNightContext): Promise<NightQuality[]> {
-  const { inputs, problems } = readSolveInputs(encodeFolderFiles(writeArchiveFolder(content)));
+  const { inputs, problems } = readSolveInputs(encodeFolderFiles(writeArchiveFolder(keyedByCatalogueId(content))));
   if (inputs === null) {
     if (content.nights.length === 1) return [failedQuality(content.nights[0].id, ctx.keys.get(content.nights[0].id) ?? '', 0, `the stored night cannot be read as the reduction's input: ${problems.slice(0, 3).join('; ')}`)];
     const out: NightQuality[] = [];
