@@ -56,8 +56,8 @@ export function catalogueStarOf(row: StarListRow): CatalogueStar {
  * 3 mas against ERFA), geometric, caching one per star, culmination and rough time so a star is
  * computed once per night. Refraction is applied by the reduction per observation, not here.
  * The transit instant is found on the night's batch context (night-context.ts: Earth state and
- * orientation once per half day, the reduction kernel per step) and the place evaluated once
- * with the full model there, its nutation and Earth state interpolated over the half day
+ * orientation once per night, centred on local midnight, the reduction kernel per step) and the place evaluated once
+ * with the full model there, its nutation and Earth state interpolated over that day
  * (night-slow-terms.ts, < 1 µas) while precession, Earth rotation, UT1 and polar motion are taken
  * at the instant itself: those two slow terms were four fifths of the per-transit cost; when the full model's hour angle there is off the meridian by more than 2 mas the
  * full search runs instead, so the result is predictTransit's to 0.14 ms of time.
@@ -66,7 +66,7 @@ export class NightPredictions {
   private readonly cache = new Map<string, StarPrediction>();
   private readonly motions = new Map<string, StarMotion>();
   private readonly packed = new Map<string, Float64Array>();
-  /** Batch contexts by half-day bucket of UTC (centre of the bucket, ±0.5 day served). */
+  /** Batch contexts and slow terms by day, centred on local mean midnight (±0.5 day served). */
   private readonly contexts = new Map<number, { context: NightContext; slow: NightSlowTerms }>();
   private readonly starIndex = new Int32Array(1);
   private readonly tt = new Float64Array(1);
@@ -110,11 +110,17 @@ export class NightPredictions {
     return { days: instant.tt.jd1 - 2_451_545 + instant.tt.jd2, instant };
   }
 
+  /**
+   * The context serving `utcS`: one per day centred on the site's local mean midnight (UTC seconds
+   * 86400 − longitude·240 of the night's date), so that the whole night (local noon to noon) shares
+   * one context and one set of slow terms instead of two half-day ones.
+   */
   private contextFor(utcS: number): { context: NightContext; slow: NightSlowTerms } {
-    const bucket = Math.floor(utcS / 43_200);
+    const midnightS = SECONDS_PER_DAY - (this.site.longitudeRad / (2 * Math.PI)) * SECONDS_PER_DAY;
+    const bucket = Math.round((utcS - midnightS) / SECONDS_PER_DAY);
     let entry = this.contexts.get(bucket);
     if (entry === undefined) {
-      const centreUtc = { jd1: 2_400_000.5 + this.nightDateMjd, jd2: ((bucket + 0.5) * 43_200) / SECONDS_PER_DAY };
+      const centreUtc = { jd1: 2_400_000.5 + this.nightDateMjd, jd2: (midnightS + bucket * SECONDS_PER_DAY) / SECONDS_PER_DAY };
       const centre = this.instantFromUtc(centreUtc);
       // UTC − TT is constant within the context's day but across a leap second, where the full-model check below catches any error.
       const utcOf = (tt: { jd1: number; jd2: number }) => ({ jd1: centreUtc.jd1, jd2: centreUtc.jd2 + (tt.jd1 - centre.tt.jd1) + (tt.jd2 - centre.tt.jd2) });
@@ -132,8 +138,11 @@ export class NightPredictions {
     const target = culmination === 'upper' ? 0 : Math.PI;
     const { context, slow } = this.contextFor(roughUtcS);
     let utcS = roughUtcS;
+    // TT − UTC from one time-scale lookup serves the Newton steps (constant but across a leap
+    // second, where the full-model check below refuses the result).
+    const ttMinusUtcDays = this.ttDays(roughUtcS).days - (this.nightDateMjd + 2_400_000.5 - 2_451_545 + roughUtcS / SECONDS_PER_DAY);
     for (let i = 0; i < 6; i++) {
-      this.tt[0] = this.ttDays(utcS).days;
+      this.tt[0] = this.nightDateMjd + 2_400_000.5 - 2_451_545 + utcS / SECONDS_PER_DAY + ttMinusUtcDays;
       if (Math.abs(this.tt[0] - context.centreDaysSinceJ2000) > context.halfWidthDays) return null;
       reduceNight(context, packed, this.starIndex, this.tt, this.out);
       const stepS = wrapToPi(this.out[R_HOUR_ANGLE] - target) / HOUR_ANGLE_RATE_RAD_PER_S;
