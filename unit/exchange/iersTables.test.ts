@@ -4,19 +4,14 @@ import { describe, expect, test } from 'vitest';
 import { calendarDayToMjd } from '../../core/time/julian-date.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { importEarthOrientation, importLeapSecondsList, tableFreshness } from '../../renderer/exchange/iersTables.ts';
+import { finals2016 } from '../time/finals-excerpt.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
 
 // The IERS leap-seconds.list as shipped in assets/ (Debian tzdata 2026f, hash-checked by the parser).
 const leapList = readFileSync(fileURLToPath(new URL('../../assets/leap-seconds.list', import.meta.url)), 'utf8');
 
-// Four real lines of the IERS Rapid Service finals2000A file (2016-04-27 … 2016-04-30, issued
-// 2016-04-30; as carried by Debian's python3-astropy test data and unit/time's excerpt).
-const FINALS = `
-16 427 57505.00 I  0.028928 0.000091  0.467015 0.000092  I-0.1290372 0.0000169  1.1618 0.0123  P     0.065    0.239     0.008    0.600
-16 428 57506.00 I  0.029730 0.000092  0.468564 0.000091  I-0.1303716 0.0000185                 P     0.083    0.239     0.035    0.600
-16 429 57507.00 P  0.030798 0.000622  0.469783 0.000448  P-0.1317429 0.0001080                 P     0.085    0.239     0.066    0.600
-16 430 57508.00 P  0.031994 0.000923  0.470993 0.000737  P-0.1331878 0.0002041                 P     0.065    0.239     0.057    0.600
-`.slice(1);
+// Four real lines of the IERS finals2000A file (2016-04-27 … 2016-04-30; unit/time/finals-excerpt.ts).
+const FINALS = finals2016(57505, 57508);
 
 const NOW = '2026-03-20T12:00:00.000Z';
 

@@ -4,16 +4,11 @@ import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { parseIersFinals } from '../../core/time/earth-orientation-table.ts';
 import { daysOfTable, SplicedEarthOrientation } from '../../core/time/spliced-earth-orientation.ts';
 import { TimeScale } from '../../core/time/timescale.ts';
+import { finals2016 } from './finals-excerpt.ts';
 import { ARCSEC, MAS } from '../../core/units.ts';
 
-// Four real lines of the IERS Rapid Service finals2000A file (2016-04-27 … 2016-04-30, issued
-// 2016-04-30; as carried by Debian's python3-astropy test data): two 'I' (observed), two 'P'.
-const FINALS_EXCERPT = `
-16 427 57505.00 I  0.028928 0.000091  0.467015 0.000092  I-0.1290372 0.0000169  1.1618 0.0123  P     0.065    0.239     0.008    0.600
-16 428 57506.00 I  0.029730 0.000092  0.468564 0.000091  I-0.1303716 0.0000185                 P     0.083    0.239     0.035    0.600
-16 429 57507.00 P  0.030798 0.000622  0.469783 0.000448  P-0.1317429 0.0001080                 P     0.085    0.239     0.066    0.600
-16 430 57508.00 P  0.031994 0.000923  0.470993 0.000737  P-0.1331878 0.0002041                 P     0.065    0.239     0.057    0.600
-`.slice(1);
+// Four real lines of the IERS finals2000A file (2016-04-27 … 2016-04-30; finals-excerpt.ts): two 'I', two 'P'.
+const FINALS_EXCERPT = finals2016(57505, 57508);
 
 const bundled = bundledEarthOrientationTable();
 const finals = parseIersFinals(FINALS_EXCERPT, 'finals2000A excerpt');

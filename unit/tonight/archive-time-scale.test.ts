@@ -9,19 +9,14 @@ import { importEarthOrientation, importLeapSecondsList } from '../../renderer/ex
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { archiveTimeScale } from '../../renderer/worker/tasks/archiveTimeScale.ts';
 import { runTonightProgramme } from '../../renderer/worker/tasks/tonightProgramme.ts';
+import { finalsMoved } from '../time/finals-excerpt.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
 
 // The IERS leap-seconds.list as shipped in assets/ (Debian tzdata 2026f, hash-checked by the parser).
 const leapList = readFileSync(fileURLToPath(new URL('../../assets/leap-seconds.list', import.meta.url)), 'utf8');
-// Real finals2000A lines (2016-04-27 … 2016-04-30, as in unit/time's excerpt, Debian python3-astropy
-// test data), the dates moved on by 3,500 days (to 2026-01) so they lie after the bundled C04
-// series: a structural check of a gap, not real 2026 values.
-const FINALS_2026 = `
-26 125 61005.00 I  0.028928 0.000091  0.467015 0.000092  I-0.1290372 0.0000169  1.1618 0.0123  P     0.065    0.239     0.008    0.600
-26 126 61006.00 I  0.029730 0.000092  0.468564 0.000091  I-0.1303716 0.0000185                 P     0.083    0.239     0.035    0.600
-26 127 61007.00 P  0.030798 0.000622  0.469783 0.000448  P-0.1317429 0.0001080                 P     0.085    0.239     0.066    0.600
-26 128 61008.00 P  0.031994 0.000923  0.470993 0.000737  P-0.1331878 0.0002041                 P     0.065    0.239     0.057    0.600
-`.slice(1);
+// Real finals2000A lines (2016-04-27 … 2016-04-30, unit/time/finals-excerpt.ts) moved on by 3,500
+// days (to 2026-01) so they lie after the bundled C04 series: a structural check of a gap, not real 2026 values.
+const FINALS_2026 = finalsMoved(3500, 57505, 57508);
 const NOW = '2026-01-26T12:00:00.000Z';
 
 describe('the reductions in the worker use the archive’s imported IERS tables over the bundled ones', () => {
