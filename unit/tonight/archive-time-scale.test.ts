@@ -15,7 +15,7 @@ import { uniqueDatabaseName } from '../store/rowFactories.ts';
 // The IERS leap-seconds.list as shipped in assets/ (Debian tzdata 2026f, hash-checked by the parser).
 const leapList = readFileSync(fileURLToPath(new URL('../../assets/leap-seconds.list', import.meta.url)), 'utf8');
 // Real finals2000A lines (2016-04-27 … 2016-04-30, unit/time/finals-excerpt.ts) moved on by 3,500
-// days (to 2026-01) so they lie after the bundled C04 series: a structural check of a gap, not real 2026 values.
+// days (to 2025-11) so they lie after the bundled C04 series: a structural check of a gap, not real 2026 values.
 const FINALS_2026 = finalsMoved(3500, 57505, 57508);
 const NOW = '2026-01-26T12:00:00.000Z';
 
