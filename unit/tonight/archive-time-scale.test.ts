@@ -15,8 +15,8 @@ import { uniqueDatabaseName } from '../store/rowFactories.ts';
 // The IERS leap-seconds.list as shipped in assets/ (Debian tzdata 2026f, hash-checked by the parser).
 const leapList = readFileSync(fileURLToPath(new URL('../../assets/leap-seconds.list', import.meta.url)), 'utf8');
 // Real finals2000A lines (2016-04-27 … 2016-04-30, unit/time/finals-excerpt.ts) moved on by 3,500
-// days (to 2025-11) so they lie after the bundled C04 series: a structural check of a gap, not real 2026 values.
-const FINALS_2026 = finalsMoved(3500, 57505, 57508);
+// days (to 2025-11) so they lie after the bundled C04 series: a structural check of a gap, not real values for those dates.
+const FINALS_MOVED = finalsMoved(3500, 57505, 57508);
 const NOW = '2026-01-26T12:00:00.000Z';
 
 describe('the reductions in the worker use the archive’s imported IERS tables over the bundled ones', () => {
@@ -32,7 +32,7 @@ describe('the reductions in the worker use the archive’s imported IERS tables 
   it('imported days are used, a gap is warned about, and the imported leap list is the one in force', async () => {
     const database = new ArchiveDatabase(uniqueDatabaseName('time-scale-imported'));
     await importLeapSecondsList(database, leapList, 'leap-seconds.list', NOW);
-    await importEarthOrientation(database, FINALS_2026, 'finals2000A.daily', NOW);
+    await importEarthOrientation(database, FINALS_MOVED, 'finals2000A.daily', NOW);
     const { scale, tablesInUse } = await archiveTimeScale(database);
     expect(tablesInUse).toContain('leap-seconds.list (imported)');
     expect(tablesInUse).toContain('finals2000A.daily (imported)');
@@ -46,7 +46,7 @@ describe('the reductions in the worker use the archive’s imported IERS tables 
 
   it('the Tonight programme of a night in the gap carries the warning and names the tables', async () => {
     const database = new ArchiveDatabase(uniqueDatabaseName('time-scale-tonight'));
-    await importEarthOrientation(database, FINALS_2026, 'finals2000A.daily', NOW);
+    await importEarthOrientation(database, FINALS_MOVED, 'finals2000A.daily', NOW);
     const control = UNCONTROLLED;
     const request = {
       kind: 'tonight-programme' as const, site: { latitudeDeg: 47, longitudeDeg: 8, heightM: 500 },
