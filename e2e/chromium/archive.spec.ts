@@ -167,9 +167,10 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   // Back to transit counts and again, by keyboard.
   await page.getByRole('button', { name: 'Transit count', exact: true }).press('Enter');
   await expect(page.getByText('Colour: transits in the night')).toBeVisible();
-  await expect(page.locator('rect.mark.uwe')).toHaveCount(0);
+  await expect(page.locator('svg.by-uwe rect.mark')).toHaveCount(0);
+  await expect(page.locator('svg.by-count rect.mark')).toHaveCount(nights);
   await page.getByRole('button', { name: 'Unit-weight error', exact: true }).press('Enter');
-  await expect(page.locator('rect.mark.uwe')).not.toHaveCount(0);
+  await expect(page.locator('svg.by-uwe rect.mark:not([data-uwe-class="not-reduced"])')).not.toHaveCount(0);
 
   // Rejecting a transit reduces that night only (the others come from the worker's cache).
   await page.getByLabel('Edits recorded as').fill('R. Vance');
@@ -194,4 +195,73 @@ test('an address #/archive?night=ID (a plot click-through) opens that night', as
   await expect(page.getByRole('heading', { name: /^Night of 2020-11-03/ })).toBeVisible({ timeout: 20_000 });
   await page.evaluate(() => (window.location.hash = '#/archive?night=night-2022-01-12'));
   await expect(page.getByRole('heading', { name: /^Night of 2022-01-12/ })).toBeVisible();
+});
+
+// Figures for a big archive (printed, never asserted as timings): ~10,000 nights and ~100,000
+// transits made by copying demo rows into 1990–2018 (invented, like the demo), then the
+// overview's first paint, its longest main-thread task, a re-colour, and the key stage's reads.
+test('a 10,000-night archive: overview render and key-stage figures', async ({ page }) => {
+  test.setTimeout(600_000);
+  const demoNights = await openArchiveWithDemo(page);
+  const added = await page.evaluate(async (target) => {
+    const db = await new Promise<IDBDatabase>((resolve, reject) => { const r = indexedDB.open('meridian-ledger-archive'); r.onsuccess = () => resolve(r.result); r.onerror = () => reject(r.error); });
+    const read = <T,>(store: string) => new Promise<T[]>((resolve) => { const r = db.transaction(store).objectStore(store).getAll(); r.onsuccess = () => resolve(r.result as T[]); });
+    const nights = await read<{ id: string; localDate: string; instrumentId: string }>('nights');
+    const [transit] = await read<{ id: string; nightId: string }>('transits');
+    const extra = target - nights.length;
+    const tx = db.transaction(['nights', 'transits'], 'readwrite');
+    for (let i = 0; i < extra; i++) {
+      const model = nights[i % nights.length];
+      const date = new Date(Date.UTC(1990, 0, 1) + Math.floor(i / 2) * 86_400_000 * (10_585 / (extra / 2))).toISOString().slice(0, 10);
+      const id = `bench-night-${i}`;
+      tx.objectStore('nights').put({ ...model, id, localDate: date, instrumentId: nights[i % 2 === 0 ? 0 : nights.findIndex((n) => n.instrumentId !== nights[0].instrumentId)].instrumentId, importId: undefined });
+      for (let k = 0; k < 10; k++) tx.objectStore('transits').put({ ...transit, id: `${id}/${k}`, nightId: id, starId: 'bench-no-such-star', importId: undefined });
+    }
+    await new Promise((resolve) => (tx.oncomplete = resolve));
+    db.close();
+    return extra;
+  }, 10_000);
+  await page.addInitScript(() => {
+    const longest: number[] = [];
+    (window as unknown as { longTasks: number[] }).longTasks = longest;
+    new PerformanceObserver((list) => { for (const e of list.getEntries()) longest.push(e.duration, e.startTime); }).observe({ type: 'longtask', buffered: true });
+  });
+  await page.reload();
+  const total = demoNights + added;
+  // DOM queries only while measuring: a role query computes the accessibility tree of every mark.
+  const headingMs = await page.evaluate(() => new Promise<number>((resolve) => {
+    const poll = () => (document.querySelector('rect.mark') !== null ? resolve(performance.now()) : setTimeout(poll, 10));
+    poll();
+  }));
+  await page.waitForFunction((n) => document.querySelectorAll('rect.mark').length >= n, total, { timeout: 120_000, polling: 50 });
+  const paintMs = await page.evaluate(() => new Promise<number>((resolve) => requestAnimationFrame(() => setTimeout(() => resolve(performance.now())))));
+  await expect(marks(page)).toHaveCount(total);
+  const longTasks = await page.evaluate(() => (window as unknown as { longTasks: number[] }).longTasks.slice());
+  const recolourMs = await page.evaluate(async () => {
+    const button = [...document.querySelectorAll('button')].find((b) => b.textContent === 'Transit count');
+    const start = performance.now();
+    button?.click();
+    await new Promise((resolve) => requestAnimationFrame(() => setTimeout(resolve)));
+    return performance.now() - start;
+  });
+  await expect(page.getByText('Colour: transits in the night')).toBeVisible();
+  const reads = await page.evaluate(async () => {
+    const db = await new Promise<IDBDatabase>((resolve) => { const r = indexedDB.open('meridian-ledger-archive'); r.onsuccess = () => resolve(r.result); });
+    const done = (r: IDBRequest) => new Promise<unknown>((resolve) => { r.onsuccess = () => resolve(r.result); });
+    let start = performance.now();
+    const all = (await done(db.transaction('transits').objectStore('transits').getAll())) as unknown[];
+    const bodiesMs = performance.now() - start;
+    const ids = (await done(db.transaction('nights').objectStore('nights').getAllKeys())) as string[];
+    start = performance.now();
+    const tx = db.transaction('transits');
+    await Promise.all(ids.map((id) => done(tx.objectStore('transits').index('nightId').count(IDBKeyRange.only(id)))));
+    const countsMs = performance.now() - start;
+    db.close();
+    return { transits: all.length, nights: ids.length, bodiesMs, countsMs };
+  });
+  const load = await page.evaluate(() => navigator.hardwareConcurrency);
+  console.log(`big archive: ${total} nights; first mark seen ${headingMs.toFixed(0)} ms, all marks painted ${paintMs.toFixed(0)} ms after navigation start; long tasks (ms long @ ms after start) ${longTasks.flatMap((t, i) => (i % 2 === 0 ? [`${t.toFixed(0)} @ ${longTasks[i + 1].toFixed(0)}`] : [])).join(', ')}; re-colour ${recolourMs.toFixed(0)} ms; ` +
+    `key-stage reads: all ${reads.transits} transit bodies ${reads.bodiesMs.toFixed(0)} ms vs ${reads.nights} index counts ${reads.countsMs.toFixed(0)} ms; ${load} cores`);
+  expect(reads.transits).toBeGreaterThan(90_000);
+  expect(longTasks.length).toBeGreaterThan(0);
 });
