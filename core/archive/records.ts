@@ -12,13 +12,17 @@
  * - `createdUtc` / `updatedUtc` are ISO 8601 UTC strings written by the store, for audit only.
  */
 
-/** A row written by the user is visible at once; an import writes rows `staged` until it commits. */
+/**
+ * A row written by the user is visible at once. An import writes its rows `visible` with its
+ * `importId`, in chunks inside ONE IndexedDB transaction, so they appear together when it commits
+ * and not at all when it is interrupted. `staged` rows exist only in archives written by earlier
+ * versions, whose imports staged rows and flipped them at commit; they are swept at start.
+ */
 export type Visibility = 'visible' | 'staged';
 
 /**
- * Fields on every importable row. A large import writes its rows in chunks with `visibility:
- * 'staged'` and its `importId`; committing flips them all to `visible` in one transaction, and the
- * rows of an import that never committed are swept at start (DESIGN.md §3).
+ * Fields on every importable row: the visibility above and the import that wrote it (the import
+ * journal entry in `imports` records its status; DESIGN.md §3).
  */
 export interface Importable {
   readonly visibility: Visibility;
