@@ -17,6 +17,8 @@ async function importStars(page: Page, throughBrowserPicker = true): Promise<voi
 test('the stars table downloads as an RFC 4180 CSV in the star-list layout', async ({ page }) => {
   await openApp(page, './#/exchange');
   await importStars(page);
+  // Browser mode writes no automatic backups: no empty "Automatic backup" section is shown.
+  await expect(page.getByTestId('startup-backup')).toHaveCount(0);
   const download = page.waitForEvent('download');
   await page.getByTestId('export-csv-stars').click();
   const file = await download;
