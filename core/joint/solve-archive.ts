@@ -6,7 +6,7 @@ import { latitudeVariationResults, segmentResults } from './term-results.ts';
 import { commonModeSeries, type InstrumentCommonMode } from './common-mode.ts';
 import { describeDegeneracies } from './degeneracy-words.ts';
 import type { JointModel, SegmentableTerm } from './joint-model.ts';
-import { estimateVarianceComponents } from './variance-components.ts';
+import { estimateVarianceComponents, type VarianceFactors } from './variance-components.ts';
 import type { JointNight, JointObservation } from './joint-observations.ts';
 import { prepareArchive, type PreparedArchive } from './prepare-archive.ts';
 import { correlationOf, instrumentSeries, type CorrelationMatrix, type NightInstrumentTerms } from './solve-outputs.ts';
@@ -75,12 +75,13 @@ export interface LatitudeVariationResult {
   readonly amplitudeArcsec: number; readonly amplitudeSigmaArcsec: number;
 }
 
-export interface VarianceComponentsResult {
-  readonly stars: readonly { readonly id: string; readonly raFactor: number; readonly zenithFactor: number; readonly raRedundancy: number; readonly zenithRedundancy: number }[];
-  readonly nights: readonly { readonly id: string; readonly factor: number; readonly redundancy: number }[];
-  readonly iterations: number;
-  readonly converged: boolean;
-  readonly keptAtOne: number;
+/** A group's factor named by its star or night id instead of its index. */
+type NamedGroup<T> = Omit<T, 'index'> & { readonly id: string };
+
+/** The estimated variance factors (variance-components.ts) with stars and nights named. */
+export interface VarianceComponentsResult extends Omit<VarianceFactors, 'stars' | 'nights'> {
+  readonly stars: readonly NamedGroup<VarianceFactors['stars'][number]>[];
+  readonly nights: readonly NamedGroup<VarianceFactors['nights'][number]>[];
 }
 
 function value(solution: JointSolution, index: number, scale = 1): [number | null, number | null] {
