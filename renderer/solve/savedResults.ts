@@ -4,7 +4,7 @@ import type { ArchiveSolveResult } from '../../core/joint/solve-archive.ts';
 import type { SolveSelection } from './solveSelection.ts';
 
 /**
- * The part of a saved reduction's results (solveResultJson) the Solve view shows: the JSON-safe
+ * The part of a saved reduction's results (core/joint/solve-result-json.ts) the Solve view shows: the JSON-safe
  * fields of the joint solve's own result, plus the nights per star the task adds.
  */
 export interface SavedResults

@@ -4,6 +4,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { SimulatedArchive } from '../../core/simulate/simulate-archive.ts';
 import { observationResiduals } from '../../core/joint/solve-outputs.ts';
+import { solveResultJson } from '../../core/joint/solve-result-json.ts';
 import type { ArchiveSolveResult } from '../../core/joint/solve-archive.ts';
 import type { SolveInputs } from '../../core/joint/solve-inputs.ts';
 import { modelFor, simulatedInputs, solve } from './joint-helpers.ts';
@@ -75,5 +76,21 @@ describe('joint solve outputs', () => {
     expect(sum).toBeGreaterThan(0.8 * result.chiSquare);
     expect(result.degreesOfFreedom).toBeGreaterThan(0);
     expect(result.chiSquare / result.degreesOfFreedom).toBeCloseTo(result.unitWeightError ** 2, 9);
+  });
+
+  it('solveResultJson(result, catalogue) is the CLI and saved-reduction shape: JSON-safe, nights counted per star, residuals only when asked', () => {
+    const plain = solveResultJson(result, stars);
+    expect(JSON.parse(JSON.stringify(plain))).toEqual(plain);
+    expect(plain).not.toHaveProperty('residuals');
+    const nightsOfStar = plain.starNights as Record<string, number>;
+    // Recounted here from the solve's observation list: the distinct nights each star's transits fall on.
+    for (const s of result.stars) {
+      const nights = new Set(result.observations.filter((o) => stars[o.star].id === s.id).map((o) => o.night));
+      expect(nightsOfStar[s.id]).toBe(nights.size);
+      expect(nightsOfStar[s.id]).toBeLessThanOrEqual(s.observations);
+      expect(nightsOfStar[s.id]).toBeGreaterThan(0);
+    }
+    const withRows = solveResultJson(result, stars, { residuals: true });
+    expect((withRows.residuals as unknown[]).length).toBe(result.observations.length);
   });
 });

@@ -4,8 +4,8 @@ import { COMPARABLE_TERMS, compareTerm, type ComparableTerm, type TermComparison
 import { crossValidateYears, type CrossValidation } from '../../../core/joint/cross-validate.ts';
 import { prepareArchive } from '../../../core/joint/prepare-archive.ts';
 import { JointSolveRefused, solveArchive, type ArchiveSolveResult } from '../../../core/joint/solve-archive.ts';
-import { readSolveInputs, type SolveInputs } from '../../../core/joint/solve-inputs.ts';
-import { observationResiduals } from '../../../core/joint/solve-outputs.ts';
+import { readSolveInputs } from '../../../core/joint/solve-inputs.ts';
+import { solveResultJson } from '../../../core/joint/solve-result-json.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../../core/time/timescale.ts';
 import { readArchiveFolderFiles } from '../../archive/archive-folder-files.ts';
@@ -58,17 +58,6 @@ function parseArguments(args: readonly string[]): SolveArguments {
   if (residuals && !json) throw new UsageError('--residuals needs --json (the residuals are only written as JSON)');
   if (crossValidate && (compare !== null || residuals)) throw new UsageError('--cross-validate cannot be combined with --compare or --residuals');
   return { dir, modelFile, json, residuals, compare, crossValidate };
-}
-
-function toJson(r: ArchiveSolveResult, stars: SolveInputs['stars'], residuals: boolean): unknown {
-  return {
-    stars: r.stars, global: r.global, unitWeightError: r.unitWeightError, chiSquare: r.chiSquare, degreesOfFreedom: r.degreesOfFreedom,
-    degeneracies: r.degeneracies, notes: r.notes,
-    nights: r.nights.map((n) => ({ id: n.id, instrumentId: n.instrumentId, nightly: n.nightly })),
-    segments: r.segments, latitudeVariation: r.latitudeVariation, varianceComponents: r.varianceComponents,
-    correlation: r.correlation, instrumentSeries: r.instrumentSeries, signatures: r.signatures,
-    ...(residuals ? { residuals: observationResiduals(r.solution, r.layout, stars, r.nights, r.observations) } : {}),
-  };
 }
 
 function fixed(v: number | null, digits: number): string {
@@ -181,7 +170,7 @@ export const solveCommand: Command = {
       throw error;
     }
     io.stderr.write(`solve: done in ${((performance.now() - started) / 1000).toFixed(1)} s\n`);
-    io.stdout.write(json ? `${JSON.stringify(toJson(result, inputs.stars, residuals), null, 2)}\n` : textReport(result));
+    io.stdout.write(json ? `${JSON.stringify(solveResultJson(result, inputs.stars, { residuals }), null, 2)}\n` : textReport(result));
     return EXIT_OK;
   },
 };

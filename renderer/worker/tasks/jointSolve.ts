@@ -11,7 +11,7 @@ import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts
 import { TimeScale } from '../../../core/time/timescale.ts';
 import { folderFingerprint } from '../../solve/folderFingerprint.ts';
 import { archiveContentFromStore, type SolveSelection } from '../../solve/solveSelection.ts';
-import { solveResultJson } from '../../solve/solveResultJson.ts';
+import { solveResultJson } from '../../../core/joint/solve-result-json.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
 import { nowUtcIso } from '../../store/nowUtcIso.ts';
 
