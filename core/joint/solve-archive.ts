@@ -107,7 +107,7 @@ export function solveProblem(prepared: PreparedArchive, model: JointModel, contr
   });
   const solution = jointSolve(problem, {
     robust: model.robustIterations > 1 ? { maxIterations: model.robustIterations } : false,
-    onProgress: onSolveProgress, cancel: { get cancelled() { return control.cancellation.isCancelled; } },
+    onProgress: onSolveProgress, cancellation: control.cancellation,
   });
   return { layout, solution };
 }

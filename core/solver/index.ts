@@ -7,7 +7,7 @@ export { ObservationRowsBuilder } from './observation-rows.ts';
 export type { ObservationRows } from './observation-rows.ts';
 export { SolveCancelled } from './problem.ts';
 export type {
-  CancellationToken, FixedParameter, LinearConstraint, ParameterPrior, ParameterRef, RobustOptions,
+  FixedParameter, LinearConstraint, ParameterPrior, ParameterRef, RobustOptions,
   SolveOptions, SolvePhase, SolveProgress, SolverProblem,
 } from './problem.ts';
 export { DEFAULT_HUBER_TUNING, jointSolve } from './joint-solve.ts';

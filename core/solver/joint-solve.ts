@@ -147,13 +147,13 @@ function iterate(prep: PreparedProblem, rows: RowState, ws: BlockWorkspace, robu
  * few passes as the blunder's weight falls (tested in unit/solver/huber.test.ts).
  *
  * Priors and constraints are not reweighted; rows with input weight 0 get residuals but no say.
- * Throws SolveCancelled when `options.cancel.cancelled` becomes true (checked every 256 blocks).
+ * Throws SolveCancelled when `options.cancellation.isCancelled` becomes true (checked every 256 blocks).
  */
 export function jointSolve(problem: SolverProblem, options: SolveOptions = {}): JointSolution {
   const robust = resolveRobust(options);
   const iterationLimit = robust ? robust.maxIterations : 1;
   const report: Reporter = (phase, fraction, iteration) => {
-    if (options.cancel?.cancelled) throw new SolveCancelled(`joint solve cancelled during ${phase} of pass ${iteration}`);
+    if (options.cancellation?.isCancelled) throw new SolveCancelled(phase, iteration);
     options.onProgress?.({ phase, iteration, iterationLimit, fraction });
   };
   report('accumulate', 0, 1);

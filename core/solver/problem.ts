@@ -1,3 +1,4 @@
+import { TaskCancelledError, type CancellationToken } from '../task/task-control.ts';
 import type { ObservationRows } from './observation-rows.ts';
 
 /**
@@ -64,18 +65,19 @@ export interface SolveProgress {
 }
 
 /**
- * Read by the solve every 256 blocks and at each phase; when true it throws SolveCancelled.
- * The solve is synchronous and never yields to its thread's event loop, so in a Web Worker a
- * message handler cannot flip a plain flag mid-solve: back the token with shared memory, e.g.
- * `const flag = new Int32Array(new SharedArrayBuffer(4)); token = { get cancelled() { return Atomics.load(flag, 0) === 1; } }`
+ * Thrown when the solve's cancellation token (`SolveOptions.cancellation`, the same token every
+ * long core task reads: core/task/task-control.ts) is set. The token is read every 256 blocks and
+ * at each phase. The solve is synchronous and never yields to its thread's event loop, so in a Web
+ * Worker a message handler cannot flip a plain flag mid-solve: back the token with shared memory,
+ * e.g. `const flag = new Int32Array(new SharedArrayBuffer(4)); token = { get isCancelled() { return Atomics.load(flag, 0) === 1; } }`
  * and have the UI thread `Atomics.store(flag, 0, 1)` (needs a cross-origin-isolated page).
+ * A TaskCancelledError, so hosts report it as cancelled, not failed.
  */
-export interface CancellationToken {
-  readonly cancelled: boolean;
-}
-
-export class SolveCancelled extends Error {
-  override readonly name = 'SolveCancelled';
+export class SolveCancelled extends TaskCancelledError {
+  constructor(phase: string, iteration: number) {
+    super(`the joint solve (${phase} of pass ${iteration})`, 0);
+    this.message = `joint solve cancelled during ${phase} of pass ${iteration}; nothing it computed was kept.`;
+  }
 }
 
 /** Huber IRLS settings; see huber-weights.ts for the estimator. */
@@ -103,5 +105,6 @@ export interface SolveOptions {
   /** How many weakest directions to list (default 5). */
   readonly weakDirectionCount?: number;
   readonly onProgress?: (progress: SolveProgress) => void;
-  readonly cancel?: CancellationToken;
+  /** Set by the host to stop the solve (core/task/task-control.ts). */
+  readonly cancellation?: CancellationToken;
 }

@@ -78,12 +78,12 @@ describe('Huber IRLS', () => {
   it('names the phase when cancelled, and reports progress per phase and pass', () => {
     const base = randomProblem({ globals: 10, blocks: 600, rows: 3000, globalsPerRow: 3 }, seededRandom(52));
     const phases = new Set<string>();
-    const token = { cancelled: false };
+    const token = { isCancelled: false };
     expect(() => jointSolve(base.problem, {
-      cancel: token,
+      cancellation: token,
       onProgress: (p) => {
         phases.add(`${p.phase}@${p.iteration}`);
-        if (p.iteration === 2 && p.phase === 'back-substitute') token.cancelled = true;
+        if (p.iteration === 2 && p.phase === 'back-substitute') token.isCancelled = true;
       },
     })).toThrow(/cancelled during back-substitute of pass 2/);
     for (const phase of ['accumulate@1', 'reduce@1', 'solve@1', 'back-substitute@1', 'reduce@2']) expect(phases).toContain(phase);
