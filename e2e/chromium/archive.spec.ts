@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import type { Page } from '@playwright/test';
 import { expect, test } from './fixtures.ts';
 import { findNonRedColours } from './nightColours.ts';
+import { allNightNames, moveCursorTo, nightCursor } from './nightMarks.ts';
 
 // Opens WITH the demo archive (invented observatory, assets/demo); returns its number of nights.
 async function openArchiveWithDemo(page: Page): Promise<number> {
@@ -14,43 +15,64 @@ async function openArchiveWithDemo(page: Page): Promise<number> {
   return count;
 }
 
-// Each mark's name: "Night of DATE, N transits with INSTRUMENT, <unit-weight error or why there is none>".
+// The cursor's name: "Night of DATE, N transits with INSTRUMENT, <unit-weight error or why there is none>".
 const escaped = (text: string) => text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-const marks = (page: Page) => page.getByRole('button', { name: /^Night of \d{4}-\d{2}-\d{2}, \d+ transits with [^,]+, / });
+const NAME = /^Night of \d{4}-\d{2}-\d{2}, \d+ transits with [^,]+, /;
+const parse = (text: string) => /^Night of (\S+), \d+ transits with ([^,]+),/.exec(text)?.slice(1) ?? ['', ''];
+
+/** Opens the night at `index` of the overview by keyboard (cursor there, Enter). */
+async function openNightAt(page: Page, index: number): Promise<void> {
+  await moveCursorTo(page, index);
+  await page.keyboard.press('Enter');
+}
 
 test('the overview shows one mark per demo night and opens a night by keyboard and by click', async ({ page }) => {
   const nights = await openArchiveWithDemo(page);
-  await expect(marks(page)).toHaveCount(nights);
+  await expect(page.locator('figure.overview')).toHaveAttribute('data-night-count', String(nights));
   await expect(page.getByText(/^Colour: unit-weight error of the night/)).toBeVisible();
+  // Every night is reached by keyboard, once, under its own name.
+  const names = await allNightNames(page);
+  expect(names).toHaveLength(nights);
+  for (const { label } of names) expect(label).toMatch(NAME);
+  expect(new Set(names.map((n) => n.id)).size).toBe(nights);
 
-  // Keyboard: the first mark is in the tab order; ArrowRight moves to the second night; Enter opens it.
-  await marks(page).first().focus();
+  // Keyboard: Tab reaches the cursor; Home puts it on the first night, ArrowRight on the second; Enter opens it.
+  // (The names end with the unit-weight error, which the pass running meanwhile may fill in: compare the start.)
+  const start = (label: string) => new RegExp(`^${escaped(label.slice(0, label.lastIndexOf(',')))},`);
+  await page.getByRole('button', { name: 'Transit count', exact: true }).focus();
+  await page.keyboard.press('Tab');
+  await expect(nightCursor(page)).toBeFocused();
+  await page.keyboard.press('Home');
+  await expect(nightCursor(page)).toHaveAttribute('aria-label', start(names[0].label));
   await page.keyboard.press('ArrowRight');
-  const second = await marks(page).nth(1).getAttribute('aria-label');
-  await expect(marks(page).nth(1)).toBeFocused();
+  const second = names[1].label;
+  await expect(page.getByRole('button', { name: start(second) })).toBeFocused();
   await page.keyboard.press('Enter');
-  const date = /Night of (\S+),/.exec(second ?? '')?.[1] ?? 'no date';
+  const date = /Night of (\S+),/.exec(second)?.[1] ?? 'no date';
   await expect(page.getByRole('heading', { name: new RegExp(`^Night of ${date}`) })).toBeVisible();
-  const count = Number(/(\d+) transits with /.exec(second ?? '')?.[1]);
+  const count = Number(/(\d+) transits with /.exec(second)?.[1]);
   await expect(page.getByText(`${count} transits, in time order`)).toBeVisible();
   await expect(page.locator('section[aria-labelledby="night-heading"] tbody tr')).toHaveCount(count);
 
-  // Click: a date both instruments observed; each instrument's mark has its own band and opens its own night.
-  const labels = await marks(page).evaluateAll((rects) => rects.map((r) => r.getAttribute('aria-label') ?? ''));
-  const parse = (text: string) => /^Night of (\S+), \d+ transits with ([^,]+),/.exec(text)?.slice(1) ?? ['', ''];
+  // Click: a date both instruments observed; each instrument's mark has its own band and opens its
+  // own night when clicked on the canvas (the point found with the cursor, which is then moved away).
   const byDate = new Map<string, string[]>();
-  for (const [date, instrument] of labels.map(parse)) byDate.set(date, [...(byDate.get(date) ?? []), instrument]);
+  for (const [date, instrument] of names.map((n) => parse(n.label))) byDate.set(date, [...(byDate.get(date) ?? []), instrument]);
   const shared = [...byDate].filter(([, instruments]) => new Set(instruments).size >= 2);
   expect(shared.length, 'dates observed with both instruments').toBeGreaterThan(10);
   const [sharedDate, instruments] = shared[Math.floor(shared.length / 2)];
   for (const instrument of instruments) {
-    const mark = page.getByRole('button', { name: new RegExp(`^Night of ${sharedDate}, \\d+ transits with ${escaped(instrument)},`) });
-    await mark.click();
+    const index = names.findIndex((n) => new RegExp(`^Night of ${sharedDate}, \\d+ transits with ${escaped(instrument)},`).test(n.label));
+    const box = await (await moveCursorTo(page, index)).boundingBox();
+    if (box === null) throw new Error('the cursor has no box on the page');
+    await page.keyboard.press('Home');
+    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
     await expect(page.getByRole('heading', { name: new RegExp(`^Night of ${sharedDate} · ${escaped(instrument)}`) })).toBeVisible();
-    await expect(mark).toHaveClass(/selected/);
+    await expect(nightCursor(page)).toHaveAttribute('aria-label', start(names[index].label));
+    await expect(nightCursor(page)).toHaveClass(/selected/);
   }
   // Keyboard order: date order, then instrument (band) order, through every mark.
-  const dates = labels.map((l) => parse(l)[0]);
+  const dates = names.map((n) => parse(n.label)[0]);
   expect(dates).toEqual([...dates].sort());
   // The bands are named: in full above the chart, in short at the left of every year row.
   for (const instrument of new Set(instruments)) await expect(page.locator('figure.overview p.bands')).toContainText(instrument);
@@ -60,7 +82,7 @@ test('the overview shows one mark per demo night and opens a night by keyboard a
 
 test('reject a transit and undo it; the audit trail names the editor', async ({ page }) => {
   await openArchiveWithDemo(page);
-  await marks(page).nth(10).click();
+  await openNightAt(page, 10);
   const firstReject = page.getByRole('button', { name: /^Reject / }).first();
   const name = (await firstReject.getAttribute('aria-label')) ?? '';
   // Without a name the edit is refused with a message.
@@ -116,7 +138,7 @@ test('add an instrument event (validated) and see it in the list; star list show
   const counts = page.getByTestId('star-transit-count');
   await expect(counts).not.toHaveCount(0);
   const total = (await counts.allTextContents()).map(Number).reduce((sum, value) => sum + value, 0);
-  const perNight = (await marks(page).evaluateAll((gs) => gs.map((g) => g.getAttribute('aria-label') ?? '')))
+  const perNight = (await allNightNames(page)).map((n) => n.label)
     .map((label) => Number(/, (\d+) transits with /.exec(label)?.[1])).reduce((sum, value) => sum + value, 0);
   expect(total).toBe(perNight);
   expect(total).toBeGreaterThan(5000);
@@ -131,7 +153,7 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   const nights = await openArchiveWithDemo(page);
   // The first pass reduces every night in the worker, with progress the page stays usable during.
   await expect(page.getByText(/^Reducing nights for the overview/)).toBeVisible();
-  await marks(page).nth(5).click();
+  await openNightAt(page, 5);
   await expect(page.getByRole('heading', { name: /^Night of \d{4}-/ })).toBeVisible({ timeout: 5_000 });
   await expect(page.getByText(`Reduced ${nights} nights; 0 unchanged from the last pass.`)).toBeVisible({ timeout: 240_000 });
   // An unchanged pass (cheap stamps, no transit body read): printed, not asserted as a timing.
@@ -139,8 +161,18 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   await page.getByRole('button', { name: 'Reduce changed nights' }).click();
   await expect(page.getByText(`Unit-weight errors of ${nights} nights, unchanged since their last reduction.`)).toBeVisible({ timeout: 60_000 });
   console.log(`unchanged UWE pass on the demo (${nights} nights): ${Date.now() - passStart} ms from the click to the status`);
-  const classes = await page.locator('rect.mark').evaluateAll((gs) => gs.map((g) => [g.getAttribute('data-night-id') ?? '', g.getAttribute('data-uwe-class') ?? ''] as const));
+  // Each night's class from its name, by the legend's limits (below 1.2, 1.2 to 2, 2 to 5, 5 and above).
+  const classOf = (label: string) => {
+    const uwe = /unit-weight error (\d+\.\d\d)$/.exec(label)?.[1];
+    return uwe === undefined ? 'not-reduced' : String([1.2, 2, 5].filter((limit) => Number(uwe) >= limit).length);
+  };
+  const classes = (await allNightNames(page)).map(({ id, label }) => [id, classOf(label)] as const);
   expect(classes).toHaveLength(nights);
+  // The canvas painted as many marks of each class as the names say.
+  const perClass = new Map<string, number>();
+  for (const [, c] of classes) perClass.set(c, (perClass.get(c) ?? 0) + 1);
+  const painted = [...perClass].map(([c, n]) => `${c}:${n}`).sort().join(' ');
+  await expect(page.locator('figure.overview canvas')).toHaveAttribute('data-painted', painted);
   const clean = classes.filter(([id]) => !BLUNDER_NIGHTS.has(id)).map(([, c]) => c);
   const planted = classes.filter(([id]) => BLUNDER_NIGHTS.has(id));
   expect(planted.length, 'planted-blunder nights found among the marks').toBeGreaterThanOrEqual(5);
@@ -153,17 +185,19 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   expect(share(planted.map(([, c]) => c))).toBeGreaterThan(share(clean));
   const [worstId, worstClass] = planted.filter(([, c]) => c !== 'not-reduced').sort((a, b) => Number(b[1]) - Number(a[1]))[0];
   expect(Number(worstClass)).toBeGreaterThan(Number(commonest));
-  const blunder = page.locator(`rect.mark[data-night-id="${worstId}"]`);
+  const worstIndex = classes.findIndex(([id]) => id === worstId);
+  const blunder = await moveCursorTo(page, worstIndex);
+  await expect(blunder).toHaveAttribute('data-night-id', worstId);
   await expect(blunder).toHaveAttribute('aria-label', /^Night of \d{4}-\d\d-\d\d, \d+ transits with [^,]+, unit-weight error \d+\.\d\d$/);
   for (const label of ['below 1.2', '1.2 to 2', '2 to 5', '5 and above', 'not reduced']) await expect(page.locator('figcaption.legend')).toContainText(label);
 
   // The night detail repeats it; day and night screenshots; the red theme shows no green or blue.
-  await blunder.click();
+  await page.keyboard.press('Enter');
   await expect(page.getByTestId('night-quality')).toContainText(/unit-weight error \d+\.\d\d \(right ascension/);
   await page.screenshot({ path: 'e2e-output/screenshots/day-archive-uwe.png', fullPage: true });
   await page.locator('figure.overview').screenshot({ path: 'e2e-output/screenshots/day-archive-uwe-overview.png' });
   await page.getByRole('button', { name: 'Night (red)' }).click();
-  await marks(page).nth(201).focus();
+  await moveCursorTo(page, 201);
   await page.screenshot({ path: 'e2e-output/screenshots/night-archive-uwe.png', fullPage: true });
   await page.locator('figure.overview').screenshot({ path: 'e2e-output/screenshots/night-archive-uwe-overview.png' });
   expect(await findNonRedColours(page, 0)).toEqual([]);
@@ -172,10 +206,15 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   // Back to transit counts and again, by keyboard.
   await page.getByRole('button', { name: 'Transit count', exact: true }).press('Enter');
   await expect(page.getByText('Colour: transits in the night')).toBeVisible();
-  await expect(page.locator('svg.by-uwe rect.mark')).toHaveCount(0);
-  await expect(page.locator('svg.by-count rect.mark')).toHaveCount(nights);
+  const canvas = page.locator('figure.overview canvas');
+  await expect(canvas).toHaveAttribute('data-colour-by', 'count');
+  // By count, every mark is painted in one of the count steps.
+  const steps = ((await canvas.getAttribute('data-painted')) ?? '').split(' ').map((part) => part.split(':'));
+  expect(steps.every(([key]) => /^step-[0-4]$/.test(key))).toBe(true);
+  expect(steps.reduce((sum, [, n]) => sum + Number(n), 0)).toBe(nights);
   await page.getByRole('button', { name: 'Unit-weight error', exact: true }).press('Enter');
-  await expect(page.locator('svg.by-uwe rect.mark:not([data-uwe-class="not-reduced"])')).not.toHaveCount(0);
+  await expect(canvas).toHaveAttribute('data-colour-by', 'uwe');
+  await expect(canvas).toHaveAttribute('data-painted', painted);
 
   // Rejecting a transit reduces that night only (the others come from the worker's cache).
   await page.getByLabel('Edits recorded as').fill('R. Vance');
@@ -187,10 +226,10 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
 
 test('screenshots of the Archive with the demo, day and night; night shows no green or blue', async ({ page }) => {
   await openArchiveWithDemo(page);
-  await marks(page).nth(200).click();
+  await openNightAt(page, 200);
   await page.screenshot({ path: 'e2e-output/screenshots/day-archive-demo.png', fullPage: true });
   await page.getByRole('button', { name: 'Night (red)' }).click();
-  await marks(page).nth(201).focus();
+  await moveCursorTo(page, 201);
   await page.screenshot({ path: 'e2e-output/screenshots/night-archive-demo.png', fullPage: true });
   expect(await findNonRedColours(page, 0)).toEqual([]);
 });
@@ -233,14 +272,19 @@ test('a 10,000-night archive: overview render and key-stage figures', async ({ p
   });
   await page.reload();
   const total = demoNights + added;
-  // DOM queries only while measuring: a role query computes the accessibility tree of every mark.
-  const headingMs = await page.evaluate(() => new Promise<number>((resolve) => {
-    const poll = () => (document.querySelector('rect.mark') !== null ? resolve(performance.now()) : setTimeout(poll, 10));
-    poll();
-  }));
-  await page.waitForFunction((n) => document.querySelectorAll('rect.mark').length >= n, total, { timeout: 120_000, polling: 50 });
+  // The canvas says what it painted (class:count pairs): the sum reaching every night is the whole overview drawn.
+  const painted = (page: Page, atLeast: 'one' | 'all') => page.waitForFunction((wanted) => {
+    const sum = ((document.querySelector('figure.overview canvas')?.getAttribute('data-painted') ?? '').match(/:\d+/g) ?? [])
+      .reduce((total, part) => total + Number(part.slice(1)), 0);
+    const all = Number(document.querySelector('figure.overview')?.getAttribute('data-night-count'));
+    return (wanted === 'one' ? sum > 0 : sum >= all) && performance.now();
+  }, atLeast, { timeout: 120_000, polling: 10 });
+  const headingMs = Number(await (await painted(page, 'one')).jsonValue());
+  await painted(page, 'all');
   const paintMs = await page.evaluate(() => new Promise<number>((resolve) => requestAnimationFrame(() => setTimeout(() => resolve(performance.now())))));
-  await expect(marks(page)).toHaveCount(total);
+  await expect(page.locator('figure.overview')).toHaveAttribute('data-night-count', String(total));
+  // Let the unit-weight-error pass colour the marks for a while (its updates repaint the canvas).
+  await page.waitForTimeout(5_000);
   const longTasks = await page.evaluate(() => (window as unknown as { longTasks: number[] }).longTasks.slice());
   const recolourMs = await page.evaluate(async () => {
     const button = [...document.querySelectorAll('button')].find((b) => b.textContent === 'Transit count');
