@@ -3,28 +3,37 @@ import {
   NC_ACCELERATION, NC_ANGLE, NC_CENTRE_DAYS, NC_COS_LAT, NC_HELIO, NC_INVERSE_HALF_WIDTH, NC_JERK, NC_LOCAL, NC_NPB,
   NC_POSITION, NC_REFRACTION, NC_SIN_LAT, NC_SITE, NC_SITE_VELOCITY, NC_VELOCITY,
 } from './night-context.ts';
-import { refractionScratch, refractScratch } from './refraction-jacobian.ts';
-import { sinCos } from './sine-cosine.ts';
+import { atan2Fast } from './arctangent.ts';
+import { SINE_TABLE_NODES, SINE_TAU_HIGH, SINE_TAU_LOW, sineTableCos, sineTableSin } from './sine-cosine.ts';
 
 // Offsets copied into this module's own constants: an imported binding is re-read from its module
 // cell at every use in optimised code (about a third of the frame's cost, measured), a local one is not.
 const POSITION = NC_POSITION, VELOCITY = NC_VELOCITY, ACCELERATION = NC_ACCELERATION, JERK = NC_JERK;
-const HELIO = NC_HELIO, NPB = NC_NPB, LOCAL = NC_LOCAL, ANGLE = NC_ANGLE, SITE = NC_SITE;
+const HELIO = NC_HELIO, LOCAL = NC_LOCAL, ANGLE = NC_ANGLE, SITE = NC_SITE;
 const SITE_VELOCITY = NC_SITE_VELOCITY, COS_LAT = NC_COS_LAT, SIN_LAT = NC_SIN_LAT;
+const N00 = NC_NPB, N01 = NC_NPB + 5, N02 = NC_NPB + 10, N10 = NC_NPB + 15, N11 = NC_NPB + 20, N12 = NC_NPB + 25;
+const N20 = NC_NPB + 30, N21 = NC_NPB + 35, N22 = NC_NPB + 40;
 const REFRACTION = NC_REFRACTION, INVERSE_HALF_WIDTH = NC_INVERSE_HALF_WIDTH, CENTRE_DAYS = NC_CENTRE_DAYS;
 const INVERSE_C = 1 / SPEED_OF_LIGHT_AU_PER_DAY;
 const C = SPEED_OF_LIGHT_AU_PER_DAY;
 const LIGHT_TIME = LIGHT_TIME_AU_DAYS;
 const SCHWARZSCHILD = SCHWARZSCHILD_RADIUS_SUN_AU;
 const INVERSE_KAPPA = 1 / CONSTANT_OF_ABERRATION_RAD;
-const rotation = new Float64Array(2);
-const t = refractionScratch();
+// The table and range reduction of sine-cosine.ts (two-part 2π, Cody & Waite), as local bindings.
+const NODES = SINE_TABLE_NODES, nodeCos = sineTableCos, nodeSin = sineTableSin;
+const INVERSE_TAU = 1 / (2 * Math.PI), TAU_HIGH = SINE_TAU_HIGH, TAU_LOW = SINE_TAU_LOW;
+const STEP = (2 * Math.PI) / NODES, INVERSE_STEP = NODES / (2 * Math.PI);
+/** cos Z below which (Z > 89.5°) no refraction is applied, as refraction-jacobian.ts and observedPlace. */
+const HORIZON_COS = Math.cos((89.5 * Math.PI) / 180);
+/** tan² 80°: below it the refraction takes the cheaper closed first step (see the kernel). */
+const FAST_REFRACTION_TAN2 = Math.tan((80 * Math.PI) / 180) ** 2;
 
 /**
  * One transit of a night, fused: the instant frame of `fillFrameFromNight` (night-frame.ts) kept in
  * local variables and the observed place with partials of `reduceStar` (reduction-kernel.ts) —
- * same formulas, same order, so results agree with that pair to rounding (< 1e-12 rad, asserted in
- * unit/astrometry/night-transit-kernel.test.ts). `c` are the night's coefficients, the instant is
+ * same formulas, same order, but the angles by `atan2Fast` (< 1e-15 rad from Math.atan2) and, below
+ * Z = 80°, refraction's δ by one fewer division; results agree with that pair to rounding
+ * (< 1e-12 rad, asserted in unit/astrometry/night-transit-kernel.test.ts). `c` are the night's coefficients, the instant is
  * `ttDaysSinceJ2000[k]` (TT days since J2000.0; the caller checks it lies within the night's span),
  * `s` the star's offset in the packed stars (prepared-stars.ts); writes RESULT_STRIDE numbers
  * (layout in reduction-kernel.ts) at `o`. No allocation: only arrays and integers are passed, as
@@ -38,13 +47,27 @@ export function reduceTransitFromNight(c: Float64Array, ttDaysSinceJ2000: Float6
   const dt = days - c[CENTRE_DAYS];
   // --- the frame (night-frame.ts) ---
   const u = dt * c[INVERSE_HALF_WIDTH];
-  const theta = quartic(c, ANGLE, u);
-  sinCos(theta, rotation);
-  const cos = rotation[0], sin = rotation[1];
+  // Quartics in u written out (Horner) and the sine and cosine of sine-cosine.ts inlined by hand:
+  // V8's inlining budget goes to the three arctangents, and a call left in place boxes numbers.
+  const theta = c[ANGLE] + u * (c[ANGLE + 1] + u * (c[ANGLE + 2] + u * (c[ANGLE + 3] + u * c[ANGLE + 4])));
+  const turns = Math.floor(theta * INVERSE_TAU);
+  const reduced = theta - turns * TAU_HIGH - turns * TAU_LOW;
+  const node = Math.round(reduced * INVERSE_STEP);
+  const r = reduced - node * STEP, r2 = r * r;
+  const cosR = 1 - r2 * (0.5 - r2 * (1 / 24 - r2 * (1 / 720))), sinR = r * (1 - r2 * (1 / 6 - r2 * (1 / 120)));
+  const index = node < 0 ? node + NODES : node;
+  const nodeC = nodeCos[index], nodeS = nodeSin[index];
+  const cos = nodeC * cosR - nodeS * sinR, sin = nodeS * cosR + nodeC * sinR;
   // Q = R3(θ)·NPB (GCRS → TIRS), row-major q0…q8; rows 0 and 1 mix the NPB rows, row 2 is NPB's.
-  const n00 = quartic(c, NPB, u), n01 = quartic(c, NPB + 5, u), n02 = quartic(c, NPB + 10, u);
-  const n10 = quartic(c, NPB + 15, u), n11 = quartic(c, NPB + 20, u), n12 = quartic(c, NPB + 25, u);
-  const q6 = quartic(c, NPB + 30, u), q7 = quartic(c, NPB + 35, u), q8 = quartic(c, NPB + 40, u);
+  const n00 = c[N00] + u * (c[N00 + 1] + u * (c[N00 + 2] + u * (c[N00 + 3] + u * c[N00 + 4])));
+  const n01 = c[N01] + u * (c[N01 + 1] + u * (c[N01 + 2] + u * (c[N01 + 3] + u * c[N01 + 4])));
+  const n02 = c[N02] + u * (c[N02 + 1] + u * (c[N02 + 2] + u * (c[N02 + 3] + u * c[N02 + 4])));
+  const n10 = c[N10] + u * (c[N10 + 1] + u * (c[N10 + 2] + u * (c[N10 + 3] + u * c[N10 + 4])));
+  const n11 = c[N11] + u * (c[N11 + 1] + u * (c[N11 + 2] + u * (c[N11 + 3] + u * c[N11 + 4])));
+  const n12 = c[N12] + u * (c[N12 + 1] + u * (c[N12 + 2] + u * (c[N12 + 3] + u * c[N12 + 4])));
+  const q6 = c[N20] + u * (c[N20 + 1] + u * (c[N20 + 2] + u * (c[N20 + 3] + u * c[N20 + 4])));
+  const q7 = c[N21] + u * (c[N21 + 1] + u * (c[N21 + 2] + u * (c[N21 + 3] + u * c[N21 + 4])));
+  const q8 = c[N22] + u * (c[N22 + 1] + u * (c[N22 + 2] + u * (c[N22 + 3] + u * c[N22 + 4])));
   const q0 = cos * n00 + sin * n10, q1 = cos * n01 + sin * n11, q2 = cos * n02 + sin * n12;
   const q3 = cos * n10 - sin * n00, q4 = cos * n11 - sin * n01, q5 = cos * n12 - sin * n02;
   // M = (R3(λ)·W)·Q, R3(λ)·W linear in u.
@@ -113,42 +136,84 @@ export function reduceTransitFromNight(c: Float64Array, ttDaysSinceJ2000: Float6
   fx = dx * dg + dw * betaX + wa * vx; fy = dy * dg + dw * betaY + wa * vy; fz = dz * dg + dw * betaZ + wa * vz;
   radial = ax * fx + ay * fy + az * fz;
   const kx = (fx - radial * ax) * inverse, ky = (fy - radial * ay) * inverse, kz = (fz - radial * az) * inverse;
-  // --- rotation to the hour-angle frame, refraction, angles ---
-  t[0] = m0 * ax + m1 * ay + m2 * az;
-  t[1] = m3 * ax + m4 * ay + m5 * az;
-  t[2] = m6 * ax + m7 * ay + m8 * az;
-  t[3] = m0 * pax + m1 * pay + m2 * paz;
-  t[4] = m3 * pax + m4 * pay + m5 * paz;
-  t[5] = m6 * pax + m7 * pay + m8 * paz;
-  t[6] = m0 * kx + m1 * ky + m2 * kz;
-  t[7] = m3 * kx + m4 * ky + m5 * kz;
-  t[8] = m6 * kx + m7 * ky + m8 * kz;
+  // --- rotation to the hour-angle frame, refraction (refraction-jacobian.ts), angles ---
+  let x = m0 * ax + m1 * ay + m2 * az, y = m3 * ax + m4 * ay + m5 * az, z = m6 * ax + m7 * ay + m8 * az;
+  let p0 = m0 * pax + m1 * pay + m2 * paz, p1 = m3 * pax + m4 * pay + m5 * paz, p2 = m6 * pax + m7 * pay + m8 * paz;
+  let k0 = m0 * kx + m1 * ky + m2 * kz, k1 = m3 * kx + m4 * ky + m5 * kz, k2 = m6 * kx + m7 * ky + m8 * kz;
   const cosLat = c[COS_LAT], sinLat = c[SIN_LAT];
-  if (c[REFRACTION + 2] !== 0) {
-    t[9] = c[REFRACTION]; t[10] = c[REFRACTION + 1]; t[11] = cosLat; t[12] = sinLat;
-    refractScratch(t);
+  const cosTrue = x * cosLat + z * sinLat;
+  if (c[REFRACTION + 2] !== 0 && cosTrue >= HORIZON_COS) {
+    // refractScratch inlined: a call would take its numbers boxed and its vectors through an array.
+    const a = c[REFRACTION], b = c[REFRACTION + 1];
+    const sx = x * sinLat - z * cosLat;
+    const sinTrue = Math.sqrt(sx * sx + y * y);
+    if (sinTrue < 1e-9) {
+      const factor = 1 / (1 + a);
+      p0 *= factor; p1 *= factor; p2 *= factor; k0 *= factor; k1 *= factor; k2 *= factor;
+    } else {
+      // δ solves δ = R(Z₀ − δ). Below Z₀ = 80°: Newton's step from δ = 0 in closed form, then one
+      // more, and the gain R′/(1 + R′) carried from the first iterate to the second to first order
+      // (residual < 1e-15 rad and < 1e-12 in the gain; agreement with refractScratch is asserted
+      // in unit/astrometry/night-transit-kernel.test.ts). Beyond: refractScratch's two steps from
+      // δ = R(Z₀) (there its first iterate is the better start).
+      const tanTrue = sinTrue / cosTrue, tanTrue2 = tanTrue * tanTrue;
+      let delta: number, gain: number;
+      if (tanTrue2 < FAST_REFRACTION_TAN2) {
+        const delta1 = ((a + b * tanTrue2) * tanTrue) / (1 + (a + 3 * b * tanTrue2) * (1 + tanTrue2));
+        const e2 = delta1 * delta1;
+        const tanDelta = delta1 * (1 + e2 * (1 / 3 + e2 * (2 / 15)));
+        const tanObs = (tanTrue - tanDelta) / (1 + tanTrue * tanDelta);
+        const tan2 = tanObs * tanObs;
+        const slope = (a + 3 * b * tan2) * (1 + tan2);
+        const inverse1 = 1 / (1 + slope);
+        delta = delta1 - (delta1 - (a + b * tan2) * tanObs) * inverse1;
+        // Z falls by δ₂ − δ₁: the slope changes by −dR′/dZ·(δ₂ − δ₁); 1/(1 + R′) to first order in it.
+        const curvature = (6 * b * tanObs * (1 + tan2) + 2 * tanObs * (a + 3 * b * tan2)) * (1 + tan2);
+        gain = 1 - inverse1 * (1 + curvature * (delta - delta1) * inverse1);
+      } else {
+        delta = (a + b * tanTrue2) * tanTrue;
+        gain = 0;
+        for (let step = 0; step < 2; step++) {
+          const e2 = delta * delta;
+          const tanDelta = delta * (1 + e2 * (1 / 3 + e2 * (2 / 15)));
+          const tanObs = (tanTrue - tanDelta) / (1 + tanTrue * tanDelta);
+          const tan2 = tanObs * tanObs;
+          const slope = (a + 3 * b * tan2) * (1 + tan2);
+          const inverse = 1 / (1 + slope);
+          delta -= (delta - (a + b * tan2) * tanObs) * inverse;
+          gain = slope * inverse;
+        }
+      }
+      const d2 = delta * delta;
+      const cosDelta = 1 - d2 * (0.5 - d2 / 24);
+      const sinDelta = delta * (1 - d2 * (1 / 6 - d2 / 120));
+      const inverseSin = 1 / sinTrue;
+      const wx = (cosLat - cosTrue * x) * inverseSin, wy = -cosTrue * y * inverseSin, wz = (sinLat - cosTrue * z) * inverseSin;
+      const ex = y * sinLat * inverseSin, ey = -sx * inverseSin, ez = -y * cosLat * inverseSin;
+      const vertical = 1 - gain, across = cosDelta - sinDelta * cosTrue * inverseSin;
+      const turnedX = wx * cosDelta - x * sinDelta, turnedY = wy * cosDelta - y * sinDelta, turnedZ = wz * cosDelta - z * sinDelta;
+      let along = (p0 * wx + p1 * wy + p2 * wz) * vertical, side = (p0 * ex + p1 * ey + p2 * ez) * across;
+      p0 = along * turnedX + side * ex; p1 = along * turnedY + side * ey; p2 = along * turnedZ + side * ez;
+      along = (k0 * wx + k1 * wy + k2 * wz) * vertical; side = (k0 * ex + k1 * ey + k2 * ez) * across;
+      k0 = along * turnedX + side * ex; k1 = along * turnedY + side * ey; k2 = along * turnedZ + side * ez;
+      x = x * cosDelta + wx * sinDelta; y = y * cosDelta + wy * sinDelta; z = z * cosDelta + wz * sinDelta;
+    }
   }
   // Angles and their partials, as writeAngles in reduction-kernel.ts (inlined: a call would box
   // its number arguments), with the three reciprocals taken once.
-  const x = t[0], y = t[1], z = t[2];
   const horizontal2 = x * x + y * y;
   const horizontal = Math.sqrt(horizontal2);
   const cosZ = x * cosLat + z * sinLat;
   const sinZx = x * sinLat - z * cosLat;
   const sinZ = Math.sqrt(sinZx * sinZx + y * y);
-  out[o] = Math.atan2(-y, x);
-  out[o + 1] = Math.atan2(z, horizontal);
-  out[o + 2] = Math.atan2(sinZ, cosZ);
+  out[o] = atan2Fast(-y, x);
+  out[o + 1] = atan2Fast(z, horizontal);
+  out[o + 2] = atan2Fast(sinZ, cosZ);
   const inverseH2 = 1 / horizontal2, inverseH = 1 / horizontal, inverseSinZ = 1 / sinZ;
-  out[o + 3] = (y * t[3] - x * t[4]) * inverseH2;
-  out[o + 4] = t[5] * inverseH;
-  out[o + 5] = -(t[3] * cosLat + t[5] * sinLat) * inverseSinZ;
-  out[o + 6] = (y * t[6] - x * t[7]) * inverseH2;
-  out[o + 7] = t[8] * inverseH;
-  out[o + 8] = -(t[6] * cosLat + t[8] * sinLat) * inverseSinZ;
-}
-
-/** Horner form of a quartic in u from the coefficients at `offset` (night-context.ts layout). */
-function quartic(c: Float64Array, offset: number, u: number): number {
-  return c[offset] + u * (c[offset + 1] + u * (c[offset + 2] + u * (c[offset + 3] + u * c[offset + 4])));
+  out[o + 3] = (y * p0 - x * p1) * inverseH2;
+  out[o + 4] = p2 * inverseH;
+  out[o + 5] = -(p0 * cosLat + p2 * sinLat) * inverseSinZ;
+  out[o + 6] = (y * k0 - x * k1) * inverseH2;
+  out[o + 7] = k2 * inverseH;
+  out[o + 8] = -(k0 * cosLat + k2 * sinLat) * inverseSinZ;
 }

@@ -11,6 +11,8 @@ const TAU_HIGH = 6.283185243606567;
 const TAU_LOW = 6.357301909411278e-8;
 const nodeCos = new Float64Array(NODES + 1);
 const nodeSin = new Float64Array(NODES + 1);
+/** The table, for kernels that inline `sinCos` by hand (night-transit-kernel.ts). */
+export { NODES as SINE_TABLE_NODES, nodeCos as sineTableCos, nodeSin as sineTableSin, TAU_HIGH as SINE_TAU_HIGH, TAU_LOW as SINE_TAU_LOW };
 for (let k = 0; k <= NODES; k++) {
   nodeCos[k] = Math.cos(k * STEP);
   nodeSin[k] = Math.sin(k * STEP);
