@@ -2,6 +2,7 @@ import type { Table } from 'dexie';
 import type { InstrumentEventRecord, TransitRecord } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
+import { recountNightTallies } from '../store/nightTallies.ts';
 import { auditKey, type AuditEntry, type EditedTable } from './auditTrail.ts';
 
 type EditedRow = TransitRecord | InstrumentEventRecord;
@@ -61,12 +62,13 @@ export class ArchiveEditor {
     const editor = this.#requireEditor();
     const now = nowUtcIso();
     const table = this.#table(step.table);
-    await this.#database.transaction('rw', table, this.#database.settings, async () => {
+    await this.#database.transaction('rw', [table, this.#database.settings, ...this.#talliesScope(step.table)], async () => {
       const current = await table.get(step.recordId);
       this.#checkUnchanged(step, current ?? null, step.after);
       if (step.before === null) await table.delete(step.recordId);
       // The row comes back exactly, stamp included, so an older step on the same row still matches.
       else await table.put(step.before);
+      await this.#keepTalliesTrue(step);
       const entry: AuditEntry = {
         atUtc: now, editor, table: step.table, recordId: step.recordId,
         summary: `undid: ${step.summary}`, before: current, after: step.before,
@@ -88,10 +90,11 @@ export class ArchiveEditor {
   async #commit(step: EditStep, expected: EditedRow | null): Promise<void> {
     const editor = this.#requireEditor();
     const table = this.#table(step.table);
-    await this.#database.transaction('rw', table, this.#database.settings, async () => {
+    await this.#database.transaction('rw', [table, this.#database.settings, ...this.#talliesScope(step.table)], async () => {
       const current = await table.get(step.recordId);
       this.#checkUnchanged(step, current ?? null, expected);
       await table.put(step.after);
+      await this.#keepTalliesTrue(step);
       const entry: AuditEntry = {
         atUtc: step.after.updatedUtc, editor, table: step.table, recordId: step.recordId,
         summary: step.summary, before: step.before, after: step.after,
@@ -113,6 +116,17 @@ export class ArchiveEditor {
     const name = this.#editorName().trim();
     if (name === '') throw new Error('no editor name: type your name in "Edits recorded as" first, so the audit trail says who changed what');
     return name;
+  }
+
+  /** A transit edit also rewrites its night's tally (schema v3), in the same transaction. */
+  #talliesScope(name: EditedTable) {
+    return name === 'transits' ? [this.#database.transits, this.#database.nights, this.#database.nightTallies] : [];
+  }
+
+  async #keepTalliesTrue(step: EditStep): Promise<void> {
+    if (step.table !== 'transits') return;
+    const nights = [step.after, step.before].filter((row) => row !== null).map((row) => (row as TransitRecord).nightId);
+    await recountNightTallies(this.#database, nights);
   }
 
   #table(name: EditedTable): Table<EditedRow, string> {

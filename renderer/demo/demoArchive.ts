@@ -8,6 +8,7 @@
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { countArchiveRows, restoreBundle, verifyBundle } from '../exchange/bundleRestore.ts';
+import { recountNightTallies } from '../store/nightTallies.ts';
 
 export const DEMO_IMPORT_ID = 'demo-archive';
 export const DEMO_SETTING_KEY = 'demoArchive';
@@ -48,8 +49,11 @@ export async function loadDemoIfFirstStart(
 export async function removeDemoArchive(database: ArchiveDatabase, nowUtc: string): Promise<number> {
   let removed = 0;
   const tables = DEMO_TABLES.map((name) => database.table(name));
-  await database.transaction('rw', [...tables, database.settings], async () => {
+  await database.transaction('rw', [...tables, database.settings, database.nightTallies], async () => {
+    // Nights the demo's transits were in: a user's own transit logged into a demo night keeps its tally.
+    const touchedNights = (await database.transits.where('importId').equals(DEMO_IMPORT_ID).toArray()).map((t) => t.nightId);
     for (const table of tables) removed += await table.where('importId').equals(DEMO_IMPORT_ID).delete();
+    await recountNightTallies(database, touchedNights);
     await database.settings.put({ key: DEMO_SETTING_KEY, value: { state: 'removed', whenUtc: nowUtc } satisfies DemoState });
   });
   return removed;

@@ -2,6 +2,7 @@ import { BundleWriter } from '../../core/archive/bundle-writer.ts';
 import { TaskCancelledError, type TaskControl } from '../../core/task/task-control.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
+import { DERIVED_TABLES } from '../store/nightTallies.ts';
 import { gzipBlocks } from './gzip.ts';
 import type { StageClock } from './stageClock.ts';
 
@@ -20,11 +21,12 @@ export interface ExportedBundle {
  * The whole archive as a gzip-compressed bundle (core/archive/bundle-format.ts), one bundle
  * table per Dexie table under the same name. Every table is read in one read-only transaction, so
  * the bundle is one consistent snapshot; rows still staged by an unfinished import are left
- * out (they are not part of the archive yet). Serialising yields to the host every
+ * out (they are not part of the archive yet), and so are derived tables (DERIVED_TABLES: rebuilt
+ * after a restore). Serialising yields to the host every
  * EXPORT_CHUNK_ROWS rows for progress and cancel.
  */
 export async function exportBundle(database: ArchiveDatabase, control: TaskControl, createdUtc: string, producer: string, clock?: StageClock): Promise<ExportedBundle> {
-  const tables = database.tables;
+  const tables = database.tables.filter((t) => !DERIVED_TABLES.includes(t.name));
   const snapshot = await database.transaction('r', tables, () => Promise.all(tables.map((t) => t.toArray())));
   clock?.lap('read');
   const writer = new BundleWriter({ schemaVersion: ARCHIVE_SCHEMA_VERSION, createdUtc, producer });

@@ -4,6 +4,8 @@ import { decodeUtf8 } from '../../core/formats/utf8.ts';
 import { TaskCancelledError, UNCONTROLLED, type TaskControl } from '../../core/task/task-control.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
 import { gunzipBytes } from './gzip.ts';
+import { DERIVED_TABLES, talliesFromRows } from '../store/nightTallies.ts';
+import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
 
 /** A bundle read whole and verified (header, every table's row count and SHA-256). */
 export interface VerifiedBundle {
@@ -23,7 +25,7 @@ const VERIFY_CHUNK_LINES = 5_000;
  */
 export async function verifyBundle(database: ArchiveDatabase, bytes: Uint8Array, control: TaskControl): Promise<VerifiedBundle> {
   const inflated = await gunzipBytes(bytes);
-  const known = new Set(database.tables.map((t) => t.name));
+  const known = new Set(database.tables.map((t) => t.name).filter((name) => !DERIVED_TABLES.includes(name)));
   const rows = new Map<string, unknown[]>();
   const reader = new BundleReader((table, row) => {
     let list = rows.get(table);
@@ -98,7 +100,7 @@ function checkSchema(header: BundleHeader): void {
 
 /** Rows in the tables a user would lose by a replace (every table but settings). */
 export async function countArchiveRows(database: ArchiveDatabase): Promise<number> {
-  const counts = await Promise.all(database.tables.filter((t) => t.name !== 'settings').map((t) => t.count()));
+  const counts = await Promise.all(database.tables.filter((t) => t.name !== 'settings' && !DERIVED_TABLES.includes(t.name)).map((t) => t.count()));
   return counts.reduce((a, b) => a + b, 0);
 }
 
@@ -114,7 +116,8 @@ const RESTORE_CHUNK_ROWS = 10_000;
  * existing data; 'replace' (which the view offers only after an explicit confirmation) clears
  * every table inside the same transaction. A cancel between chunks aborts it, leaving the archive
  * as it was. Rows are written as the bundle holds them, ids,
- * import ids and every float bit for bit.
+ * import ids and every float bit for bit. The night tallies (derived, never in a bundle) are then
+ * computed from the restored nights and transits, in the same transaction.
  */
 export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedBundle, mode: RestoreMode, control: TaskControl = UNCONTROLLED): Promise<Record<string, number>> {
   const counts: Record<string, number> = {};
@@ -141,6 +144,8 @@ export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedB
       }
       counts[name] = rows.length;
     }
+    const nights = (bundle.rows.get('nights') ?? []) as readonly NightRecord[];
+    await database.nightTallies.bulkAdd(talliesFromRows(nights, (bundle.rows.get('transits') ?? []) as readonly TransitRecord[]));
   });
   return counts;
 }

@@ -4,6 +4,7 @@ import { BundleWriter } from '../../core/archive/bundle-writer.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import type { ArchiveOpenFailure } from '../store/describeOpenFailure.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
+import { DERIVED_TABLES } from '../store/nightTallies.ts';
 import { backupFileName, DEFAULT_BACKUP_KEEP } from './automaticBackups.ts';
 import { gzipBytes } from './gzip.ts';
 
@@ -21,7 +22,7 @@ export async function exportOldArchive(name: string, fromSchemaVersion: number, 
   await old.open();
   try {
     if (old.verno !== fromSchemaVersion) throw new Error(`the archive on disk is at schema ${old.verno}, not ${fromSchemaVersion} as expected`);
-    const tables = [...old.tables].sort((a, b) => a.name.localeCompare(b.name));
+    const tables = old.tables.filter((t) => !DERIVED_TABLES.includes(t.name)).sort((a, b) => a.name.localeCompare(b.name));
     const snapshot = await old.transaction('r', tables, () => Promise.all(tables.map((t) => t.toArray())));
     const writer = new BundleWriter({ schemaVersion: fromSchemaVersion, createdUtc, producer });
     const parts = [writer.start()];

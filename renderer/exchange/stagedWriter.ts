@@ -3,6 +3,8 @@ import type { ImportRecord } from '../../core/archive/records.ts';
 import type { Table } from 'dexie';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { IMPORTABLE_TABLES } from '../store/importStaging.ts';
+import { addToNightTallies, recountNightTallies } from '../store/nightTallies.ts';
+import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
 
 export type ImportableTableName = (typeof IMPORTABLE_TABLES)[number];
 
@@ -67,7 +69,7 @@ export async function writeImport(
   const total = IMPORTABLE_TABLES.reduce((sum, table) => sum + (writes.created[table]?.length ?? 0), 0);
   const rowCounts = countRows(writes);
   try {
-    await database.transaction('rw', [database.imports, ...IMPORTABLE_TABLES.map((t) => database.table(t))], async () => {
+    await database.transaction('rw', [database.imports, database.nightTallies, ...IMPORTABLE_TABLES.map((t) => database.table(t))], async () => {
       await requireStaging(database, importId);
       let done = 0;
       for (const table of IMPORTABLE_TABLES) {
@@ -86,6 +88,7 @@ export async function writeImport(
         const rows = (writes.updated[table] ?? []).map((row) => ({ ...row, visibility: 'visible', importId }));
         if (rows.length > 0) await tableOf(database, table).bulkPut(rows);
       }
+      await keepTalliesTrue(database, writes);
       await database.imports.update(importId, { rowCounts, status: 'committed', finishedUtc: now() });
     });
     return rowCounts;
@@ -93,6 +96,15 @@ export async function writeImport(
     await abandonImport(database, importId, now()).catch(() => undefined);
     throw error;
   }
+}
+
+/** The night tallies (schema v3) of the rows just written, in the import's transaction. */
+async function keepTalliesTrue(database: ArchiveDatabase, writes: ImportWrites): Promise<void> {
+  const created = (writes.created.transits ?? []) as readonly TransitRecord[];
+  const asWritten = created.map((t) => ({ nightId: t.nightId, utcMjd: t.utcMjd, userRejected: t.userRejected, visibility: 'visible' as const }));
+  await addToNightTallies(database, asWritten, (writes.created.nights ?? []) as readonly NightRecord[]);
+  const replaced = (writes.updated.transits ?? []) as readonly TransitRecord[];
+  if (replaced.length > 0) await recountNightTallies(database, replaced.map((t) => t.nightId));
 }
 
 async function requireStaging(database: ArchiveDatabase, importId: string): Promise<void> {

@@ -13,12 +13,14 @@ import type {
 } from '../../core/archive/records.ts';
 import { SCHEMA_V1 } from './schemaV1.ts';
 import { SCHEMA_V2, type SettingRecord } from './schemaV2.ts';
+import { SCHEMA_V3 } from './schemaV3.ts';
+import { upgradeToV3, type NightTallyRecord } from './nightTallies.ts';
 
 /** Name of the IndexedDB database that holds the user's archive in this browser profile. */
 export const ARCHIVE_DATABASE_NAME = 'meridian-ledger-archive';
 
 /** The newest schema version this build knows; opening a newer database fails with a VersionError. */
-export const ARCHIVE_SCHEMA_VERSION = 2;
+export const ARCHIVE_SCHEMA_VERSION = 3;
 
 /**
  * The archive database (DESIGN.md §3), one typed table per record kind.
@@ -40,11 +42,14 @@ export class ArchiveDatabase extends Dexie {
   reductions!: EntityTable<ReductionRecord, 'id'>;
   imports!: EntityTable<ImportRecord, 'id'>;
   settings!: EntityTable<SettingRecord, 'key'>;
+  /** Derived (schema v3): one tally per night, kept true by every write of transits. */
+  nightTallies!: EntityTable<NightTallyRecord, 'nightId'>;
 
   /** `name` is ARCHIVE_DATABASE_NAME in the app; tests pass a unique name each. */
   constructor(name: string = ARCHIVE_DATABASE_NAME) {
     super(name);
     this.version(1).stores(SCHEMA_V1);
     this.version(2).stores(SCHEMA_V2);
+    this.version(3).stores(SCHEMA_V3).upgrade(upgradeToV3);
   }
 }

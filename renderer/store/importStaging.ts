@@ -1,4 +1,5 @@
 import type { ArchiveDatabase } from './database.ts';
+import { recountNightTallies } from './nightTallies.ts';
 
 /** The tables whose rows an import may write; each carries `visibility` and `importId`. */
 export const IMPORTABLE_TABLES = [
@@ -20,7 +21,7 @@ function importableTables(database: ArchiveDatabase) {
  * import is unknown or not staging.
  */
 export async function commitImport(database: ArchiveDatabase, importId: string, finishedUtc: string): Promise<void> {
-  await database.transaction('rw', [database.imports, ...importableTables(database)], async () => {
+  await database.transaction('rw', [database.imports, database.nightTallies, ...importableTables(database)], async () => {
     const journal = await database.imports.get(importId);
     if (journal === undefined) {
       throw new Error(`commitImport: no import with id "${importId}" in the archive; start the import again.`);
@@ -28,9 +29,11 @@ export async function commitImport(database: ArchiveDatabase, importId: string, 
     if (journal.status !== 'staging') {
       throw new Error(`commitImport: import "${importId}" is ${journal.status}, not staging; it cannot be committed.`);
     }
+    const touchedNights = (await database.transits.where('importId').equals(importId).toArray()).map((t) => t.nightId);
     for (const table of importableTables(database)) {
       await table.where('importId').equals(importId).modify({ visibility: 'visible' });
     }
+    await recountNightTallies(database, touchedNights);
     await database.imports.update(importId, { status: 'committed', finishedUtc });
   });
 }

@@ -1,6 +1,7 @@
 import type { ClockComparison, NightRecord, TransitRecord, WeatherReading } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
+import { recountNightTallies } from '../store/nightTallies.ts';
 
 /** Tonight's night record of an instrument, or undefined before the first entry. */
 export async function findNight(database: ArchiveDatabase, instrumentId: string, localDate: string): Promise<NightRecord | undefined> {
@@ -39,7 +40,10 @@ export async function addTransit(database: ArchiveDatabase, night: NightRecord, 
     id: crypto.randomUUID(), nightId: night.id, instrumentId: night.instrumentId, ...draft, weather: null, weight: 1, userRejected: false,
     flaggedOutlier: false, visibility: 'visible', createdUtc: now, updatedUtc: now,
   };
-  await database.transits.add(record);
+  await database.transaction('rw', [database.transits, database.nights, database.nightTallies], async () => {
+    await database.transits.add(record);
+    await recountNightTallies(database, [record.nightId]);
+  });
   return record;
 }
 

@@ -5,6 +5,7 @@ import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { exportBundle } from '../../renderer/exchange/bundleExport.ts';
 import { restoreBundle, verifyBundle } from '../../renderer/exchange/bundleRestore.ts';
+import { DERIVED_TABLES } from '../../renderer/store/nightTallies.ts';
 import { gunzipBytes, gzipBytes } from '../../renderer/exchange/gzip.ts';
 import { nightRow, siteRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 
@@ -38,9 +39,12 @@ describe('bundle export → restore', () => {
     expect(exported.rowCounts.transits).toBe(2_500);
     const target = new ArchiveDatabase(uniqueDatabaseName('bundle-target'));
     const verified = await verifyBundle(target, exported.bytes, UNCONTROLLED);
-    expect(verified.header.schemaVersion).toBe(2);
+    expect(verified.header.schemaVersion).toBe(3);
     await restoreBundle(target, verified, 'into-empty');
-    for (const table of source.tables) {
+    expect(verified.manifest.tables.map((t) => t.name)).not.toContain('nightTallies');
+    // Derived, never in the bundle: rebuilt from the 2,500 transits of night-1 (utcMjd 61000 + k/7, k = 0…2499).
+    expect(await target.nightTallies.toArray()).toStrictEqual([{ nightId: 'night-1', instrumentId: 'instr-1', localDate: '2026-01-01', transitCount: 2_500, rejectedCount: 0, firstUtcMjd: 61_000, lastUtcMjd: 61_000 + 2_499 / 7 }]);
+    for (const table of source.tables.filter((t) => !DERIVED_TABLES.includes(t.name))) {
       const before = await table.toArray();
       const after = await target.table(table.name).toArray();
       expect(after.length, table.name).toBe(before.length);
@@ -77,8 +81,8 @@ describe('bundle export → restore', () => {
     expect(await refuse(await gzipBytes(encodeUtf8(lines.slice(0, -2).join('\n'))))).toMatch(/truncated/);
     expect(await refuse(encodeUtf8(text))).toMatch(/not gzip/);
     expect(await refuse(exported.bytes.slice(0, exported.bytes.length - 40))).toMatch(/damaged or cut short/);
-    const newer = new BundleWriter({ schemaVersion: 3, createdUtc: '2030-01-01T00:00:00Z', producer: 'later' });
-    expect(await refuse(await gzipBytes(encodeUtf8(newer.start() + newer.finish())))).toMatch(/schema 3, newer than this program's \(2\)/);
+    const newer = new BundleWriter({ schemaVersion: 4, createdUtc: '2030-01-01T00:00:00Z', producer: 'later' });
+    expect(await refuse(await gzipBytes(encodeUtf8(newer.start() + newer.finish())))).toMatch(/schema 4, newer than this program's \(3\)/);
     const newerFormat = text.replace('"formatVersion":1', '"formatVersion":2');
     expect(await refuse(await gzipBytes(encodeUtf8(newerFormat)))).toMatch(/format version 2, newer/);
     expect(await target.transits.count()).toBe(0);

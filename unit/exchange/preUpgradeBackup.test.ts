@@ -4,6 +4,7 @@ import type { BackupRequest, BridgeResult, BackupInfo, ShellInfo } from '../../c
 import { verifyBundle } from '../../renderer/exchange/bundleRestore.ts';
 import { backupBeforeUpgrade } from '../../renderer/exchange/preUpgradeBackup.ts';
 import { openArchive } from '../../renderer/store/openArchive.ts';
+import { ARCHIVE_SCHEMA_VERSION } from '../../renderer/store/database.ts';
 import { SCHEMA_V1 } from '../../renderer/store/schemaV1.ts';
 import { siteRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 import { watchingControl } from './exchangeFixtures.ts';
@@ -42,7 +43,7 @@ describe('a backup before the schema upgrade (desktop app)', () => {
     if (opened.kind !== 'open') return;
     expect(shell.writes).toHaveLength(1);
     expect(shell.writes[0].fileName).toMatch(/^archive-\d{4}-\d\d-\d\dT\d{6}Z-before-upgrade-from-v1\.mlbundle$/);
-    expect(opened.database.verno).toBe(2);
+    expect(opened.database.verno).toBe(ARCHIVE_SCHEMA_VERSION);
     const bundle = await verifyBundle(opened.database, shell.writes[0].bytes, watchingControl(() => {}));
     expect(bundle.header.schemaVersion).toBe(1);
     expect(bundle.manifest.tables.find((t) => t.name === 'settings')).toBeUndefined();

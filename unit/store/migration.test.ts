@@ -6,7 +6,7 @@ import { openArchive } from '../../renderer/store/openArchive.ts';
 import { loadShippedSchemas, storeFixturePath, type ShippedSchema } from '../fixtures/store/shippedSchemas.ts';
 import { decodeStoreFixture } from '../fixtures/store/storeFixtureCodec.ts';
 import type { StoreFixture } from '../fixtures/store/make-store-fixtures.ts';
-import { expectedAfterUpgrade } from './migrationExpectations.ts';
+import { derivedAfterUpgrade, expectedAfterUpgrade } from './migrationExpectations.ts';
 import { uniqueDatabaseName } from './rowFactories.ts';
 
 // Source of the expected values: the committed fixtures unit/fixtures/store/archive-schema-v<N>.json,
@@ -70,7 +70,12 @@ describe.each(earlier.map((schema) => [schema.version, schema] as const))('upgra
       // toStrictEqual compares numbers with Object.is: −0 stays −0, NaN stays NaN.
       expect(await database.table(table).toArray(), `rows of ${table}`).toStrictEqual(expected);
     }
-    for (const table of Object.keys(current?.stores ?? {}).filter((table) => !(table in fixture.tables))) {
+    const nightId = fixture.tables.nights[0].id as string;
+    const derived = derivedAfterUpgrade(version, ARCHIVE_SCHEMA_VERSION, nightId);
+    for (const [table, rows] of Object.entries(derived)) {
+      expect(await database.table(table).toArray(), `derived table ${table} filled by the upgrade`).toStrictEqual(rows);
+    }
+    for (const table of Object.keys(current?.stores ?? {}).filter((table) => !(table in fixture.tables) && !(table in derived))) {
       expect(await database.table(table).count(), `table ${table} added after v${version} starts empty`).toBe(0);
     }
     database.close();
@@ -98,8 +103,8 @@ describe.each(earlier.map((schema) => [schema.version, schema] as const))('upgra
     expect(checked).toBeGreaterThan(10);
     const clockStars = await database.stars.where('programmes').equals('clock').primaryKeys();
     expect(clockStars).toEqual(['star-1']);
-    const series = await database.transits.where('[instrumentId+utcMjd]').between(['instr-transit', Dexie.minKey], ['instr-transit', Dexie.maxKey]).primaryKeys();
-    expect(series).toEqual(['transit-1', 'transit-2']);
+    const series = await database.transits.where('[starId+utcMjd]').between(['star-1', Dexie.minKey], ['star-1', Dexie.maxKey]).primaryKeys();
+    expect(series).toEqual(['transit-1']);
     await database.settings.put({ key: 'after-upgrade', value: -0 });
     expect(Object.is((await database.settings.get('after-upgrade'))?.value, -0)).toBe(true);
     database.close();
