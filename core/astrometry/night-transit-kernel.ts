@@ -151,27 +151,31 @@ export function reduceTransitFromNight(c: Float64Array, ttDaysSinceJ2000: Float6
       const factor = 1 / (1 + a);
       p0 *= factor; p1 *= factor; p2 *= factor; k0 *= factor; k1 *= factor; k2 *= factor;
     } else {
-      // δ solves δ = R(Z₀ − δ). Below Z₀ = 80°: Newton's step from δ = 0 in closed form, then one
-      // more, and the gain R′/(1 + R′) carried from the first iterate to the second to first order
-      // (residual < 1e-15 rad and < 1e-12 in the gain; agreement with refractScratch is asserted
-      // in unit/astrometry/night-transit-kernel.test.ts). Beyond: refractScratch's two steps from
-      // δ = R(Z₀) (there its first iterate is the better start).
-      const tanTrue = sinTrue / cosTrue, tanTrue2 = tanTrue * tanTrue;
+      // δ solves δ = R(Z₀ − δ). Below Z₀ = 80°: Newton's step from δ = 0, then one more, each as
+      // one fraction in sin and cos (s² + c² = 1; tan Z₀ = s/c, tan(Z₀ − δ₁) = n/d), so only two
+      // divisions lie on the chain; the gain R′/(1 + R′) is carried from δ₁ to δ₂ to first order
+      // (residual < 1e-15 rad, < 1e-12 in the gain; agreement with refractScratch is asserted in
+      // unit/astrometry/night-transit-kernel.test.ts). Beyond: refractScratch's two steps from δ = R(Z₀).
+      const c2 = cosTrue * cosTrue, s2 = sinTrue * sinTrue;
       let delta: number, gain: number;
-      if (tanTrue2 < FAST_REFRACTION_TAN2) {
-        const delta1 = ((a + b * tanTrue2) * tanTrue) / (1 + (a + 3 * b * tanTrue2) * (1 + tanTrue2));
+      if (s2 < FAST_REFRACTION_TAN2 * c2) {
+        const delta1 = (sinTrue * cosTrue * (a * c2 + b * s2)) / (c2 * c2 + a * c2 + 3 * b * s2);
         const e2 = delta1 * delta1;
         const tanDelta = delta1 * (1 + e2 * (1 / 3 + e2 * (2 / 15)));
-        const tanObs = (tanTrue - tanDelta) / (1 + tanTrue * tanDelta);
-        const tan2 = tanObs * tanObs;
-        const slope = (a + 3 * b * tan2) * (1 + tan2);
-        const inverse1 = 1 / (1 + slope);
-        delta = delta1 - (delta1 - (a + b * tan2) * tanObs) * inverse1;
-        // Z falls by δ₂ − δ₁: the slope changes by −dR′/dZ·(δ₂ − δ₁); 1/(1 + R′) to first order in it.
-        const curvature = (6 * b * tanObs * (1 + tan2) + 2 * tanObs * (a + 3 * b * tan2)) * (1 + tan2);
+        const n = sinTrue - cosTrue * tanDelta, d = cosTrue + sinTrue * tanDelta;
+        const n2 = n * n, d2 = d * d, m2 = n2 + d2;
+        const slopeTop = (a * d2 + 3 * b * n2) * m2;
+        const inverse = 1 / (d2 * d2 + slopeTop);
+        delta = delta1 - (delta1 * d2 * d2 - n * d * (a * d2 + b * n2)) * inverse;
+        // Z falls by δ₂ − δ₁: R′ changes by −R″·(δ₂ − δ₁), R″ = 2t(1 + t²)(A + 3B + 6Bt²) at
+        // t = tan(Z₀ − δ₁) to first order in δ₁ (off the division chain); 1/(1 + R′) to first order.
+        const tanTrue = sinTrue / cosTrue, t = tanTrue - (1 + tanTrue * tanTrue) * delta1, t2 = t * t;
+        const curvature = 2 * t * (1 + t2) * (a + 3 * b + 6 * b * t2);
+        const inverse1 = d2 * d2 * inverse;
         gain = 1 - inverse1 * (1 + curvature * (delta - delta1) * inverse1);
       } else {
-        delta = (a + b * tanTrue2) * tanTrue;
+        const tanTrue = sinTrue / cosTrue;
+        delta = (a + b * tanTrue * tanTrue) * tanTrue;
         gain = 0;
         for (let step = 0; step < 2; step++) {
           const e2 = delta * delta;
@@ -209,7 +213,7 @@ export function reduceTransitFromNight(c: Float64Array, ttDaysSinceJ2000: Float6
   out[o] = atan2Fast(-y, x);
   out[o + 1] = atan2Fast(z, horizontal);
   out[o + 2] = atan2Fast(sinZ, cosZ);
-  const inverseH2 = 1 / horizontal2, inverseH = 1 / horizontal, inverseSinZ = 1 / sinZ;
+  const inverseH = 1 / horizontal, inverseH2 = inverseH * inverseH, inverseSinZ = 1 / sinZ;
   out[o + 3] = (y * p0 - x * p1) * inverseH2;
   out[o + 4] = p2 * inverseH;
   out[o + 5] = -(p0 * cosLat + p2 * sinLat) * inverseSinZ;
