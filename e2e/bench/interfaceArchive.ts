@@ -62,7 +62,7 @@ export async function fillArchive(page: Page, base: string, transits: number): P
     const utcOffset = transit.utcMjd - transit.clockMjd;
     const firstMjd = 51179; // 1999-01-01
     const nights = Math.ceil(total / starCount);
-    const write = (store: string, rows: Row[]) => new Promise<void>((resolve, reject) => {
+    const write = (store: string, rows: readonly Record<string, unknown>[]) => new Promise<void>((resolve, reject) => {
       const tx = db.transaction(store, 'readwrite');
       const os = tx.objectStore(store);
       for (const row of rows) os.put(row);
@@ -71,22 +71,32 @@ export async function fillArchive(page: Page, base: string, transits: number): P
     });
     let written = 0;
     const NIGHTS_PER_CHUNK = 200;
+    // The derived per-night tallies (schema v3, renderer/store/nightTallies.ts) as the app's own writers keep them.
+    const keepsTallies = db.objectStoreNames.contains('nightTallies');
     for (let first = 0; first < nights; first += NIGHTS_PER_CHUNK) {
       const nightRows: Row[] = [];
       const transitRows: Row[] = [];
+      const tallyRows: Record<string, unknown>[] = [];
       for (let k = first; k < Math.min(nights, first + NIGHTS_PER_CHUNK); k++) {
         const localDate = new Date(Date.UTC(1999, 0, 1 + k)).toISOString().slice(0, 10);
         const nightId = `bench-night-${localDate}`;
         nightRows.push({ ...night, id: nightId, localDate });
+        const firstOfNight = transitRows.length;
         for (let s = 0; s < starCount && written < total; s++, written++) {
           // Star s crosses at 18 h + s·3 min of the clock (sidereal drift ignored: these rows are for the interface, not for reduction).
           const clockMjd = firstMjd + k + (18 * 60 + s * 3) / 1440;
           transitRows.push({ ...transit, id: `bench-transit-${localDate}-${s}`, nightId, starId: stars[s].id, clockMjd, utcMjd: clockMjd + utcOffset,
             wireClockMjd: wireOffsets.map((o) => clockMjd + o), zenithReadings: [12 + (s % 7) * 0.1] });
         }
+        const ofNight = transitRows.slice(firstOfNight) as unknown as { utcMjd: number }[];
+        if (ofNight.length > 0) {
+          tallyRows.push({ nightId, instrumentId: night.instrumentId, localDate, transitCount: ofNight.length, rejectedCount: 0,
+            firstUtcMjd: Math.min(...ofNight.map((t) => t.utcMjd)), lastUtcMjd: Math.max(...ofNight.map((t) => t.utcMjd)) });
+        }
       }
       await write('nights', nightRows);
       await write('transits', transitRows);
+      if (keepsTallies) await write('nightTallies', tallyRows);
     }
     db.close();
     return { nights: nights + 1, transits: written + 1, stars: stars.length };

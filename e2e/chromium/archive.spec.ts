@@ -168,11 +168,15 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   };
   const classes = (await allNightNames(page)).map(({ id, label }) => [id, classOf(label)] as const);
   expect(classes).toHaveLength(nights);
-  // The canvas painted as many marks of each class as the names say.
+  // The canvas painted as many marks of each class as the names say, but for names whose
+  // two-decimal value sits on a class limit (1.20 may be 1.196, class 0): those may go either way.
   const perClass = new Map<string, number>();
   for (const [, c] of classes) perClass.set(c, (perClass.get(c) ?? 0) + 1);
-  const painted = [...perClass].map(([c, n]) => `${c}:${n}`).sort().join(' ');
-  await expect(page.locator('figure.overview canvas')).toHaveAttribute('data-painted', painted);
+  const onLimit = (await allNightNames(page)).filter(({ label }) => /unit-weight error (1\.20|2\.00|5\.00)$/.test(label)).length;
+  const paintedNow = async () => new Map(((await page.locator('figure.overview canvas').getAttribute('data-painted')) ?? '').split(' ').map((p) => [p.split(':')[0], Number(p.split(':')[1])]));
+  const differences = (seen: Map<string, number>) => [...new Set([...seen.keys(), ...perClass.keys()])].reduce((sum, c) => sum + Math.abs((seen.get(c) ?? 0) - (perClass.get(c) ?? 0)), 0);
+  const painted = await paintedNow();
+  expect(differences(painted), `painted ${JSON.stringify([...painted])}, named ${JSON.stringify([...perClass])}`).toBeLessThanOrEqual(2 * onLimit);
   const clean = classes.filter(([id]) => !BLUNDER_NIGHTS.has(id)).map(([, c]) => c);
   const planted = classes.filter(([id]) => BLUNDER_NIGHTS.has(id));
   expect(planted.length, 'planted-blunder nights found among the marks').toBeGreaterThanOrEqual(5);
@@ -214,7 +218,7 @@ test('the overview colours the demo nights by unit-weight error; a blunder night
   expect(steps.reduce((sum, [, n]) => sum + Number(n), 0)).toBe(nights);
   await page.getByRole('button', { name: 'Unit-weight error', exact: true }).press('Enter');
   await expect(canvas).toHaveAttribute('data-colour-by', 'uwe');
-  await expect(canvas).toHaveAttribute('data-painted', painted);
+  expect(await paintedNow()).toEqual(painted);
 
   // Rejecting a transit reduces that night only (the others come from the worker's cache).
   await page.getByLabel('Edits recorded as').fill('R. Vance');
@@ -251,14 +255,17 @@ test('a 10,000-night archive: overview render and key-stage figures', async ({ p
     const db = await new Promise<IDBDatabase>((resolve, reject) => { const r = indexedDB.open('meridian-ledger-archive'); r.onsuccess = () => resolve(r.result); r.onerror = () => reject(r.error); });
     const read = <T,>(store: string) => new Promise<T[]>((resolve) => { const r = db.transaction(store).objectStore(store).getAll(); r.onsuccess = () => resolve(r.result as T[]); });
     const nights = await read<{ id: string; localDate: string; instrumentId: string }>('nights');
-    const [transit] = await read<{ id: string; nightId: string }>('transits');
+    const [transit] = await read<{ id: string; nightId: string; utcMjd: number }>('transits');
     const extra = target - nights.length;
-    const tx = db.transaction(['nights', 'transits'], 'readwrite');
+    // The derived per-night tallies (schema v3) written beside, as the app's own writers keep them.
+    const tx = db.transaction(['nights', 'transits', 'nightTallies'], 'readwrite');
     for (let i = 0; i < extra; i++) {
       const model = nights[i % nights.length];
       const date = new Date(Date.UTC(1990, 0, 1) + Math.floor(i / 2) * 86_400_000 * (10_585 / (extra / 2))).toISOString().slice(0, 10);
       const id = `bench-night-${i}`;
-      tx.objectStore('nights').put({ ...model, id, localDate: date, instrumentId: nights[i % 2 === 0 ? 0 : nights.findIndex((n) => n.instrumentId !== nights[0].instrumentId)].instrumentId, importId: undefined });
+      const instrumentId = nights[i % 2 === 0 ? 0 : nights.findIndex((n) => n.instrumentId !== nights[0].instrumentId)].instrumentId;
+      tx.objectStore('nights').put({ ...model, id, localDate: date, instrumentId, importId: undefined });
+      tx.objectStore('nightTallies').put({ nightId: id, instrumentId, localDate: date, transitCount: 10, rejectedCount: 0, firstUtcMjd: transit.utcMjd, lastUtcMjd: transit.utcMjd });
       for (let k = 0; k < 10; k++) tx.objectStore('transits').put({ ...transit, id: `${id}/${k}`, nightId: id, starId: 'bench-no-such-star', importId: undefined });
     }
     await new Promise((resolve) => (tx.oncomplete = resolve));

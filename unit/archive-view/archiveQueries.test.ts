@@ -1,6 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { loadInstruments, loadNightDetail, loadNightSummaries, loadStarProgramme } from '../../renderer/archive/archiveQueries.ts';
+import { rebuildNightTallies } from '../../renderer/store/nightTallies.ts';
 import { nightRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 
 // Invented rows; the checks count what was written.
@@ -13,6 +14,8 @@ async function filled(): Promise<ArchiveDatabase> {
     transitRow('t-2', { nightId: 'n-1', starId: 's-b', utcMjd: 61_002.8 }),
     transitRow('t-3', { nightId: 'n-2', starId: 's-a', utcMjd: 61_003.9 }),
   ]);
+  // Rows written straight into the tables: the tallies then made as every writer of transits keeps them.
+  await rebuildNightTallies(database);
   return database;
 }
 
@@ -20,6 +23,15 @@ describe('archive queries', () => {
   test('loadNightSummaries gives nights in date order with their transit counts', async () => {
     const summaries = await loadNightSummaries(await filled());
     expect(summaries.map((s) => [s.night.localDate, s.transitCount])).toEqual([['2026-01-02', 2], ['2026-01-03', 1], ['2026-01-04', 0]]);
+  });
+
+  test('loadNightSummaries counts from the tallies: a staged transit is not counted, an invisible night not listed', async () => {
+    const database = await filled();
+    await database.nights.add(nightRow('n-4', { localDate: '2026-01-01', visibility: 'staged' }));
+    await database.transits.bulkAdd([transitRow('t-4', { nightId: 'n-3', starId: 's-a', visibility: 'staged' }), transitRow('t-5', { nightId: 'n-4', starId: 's-a' })]);
+    await rebuildNightTallies(database);
+    const summaries = await loadNightSummaries(database);
+    expect(summaries.map((s) => [s.night.id, s.transitCount])).toEqual([['n-1', 2], ['n-2', 1], ['n-3', 0]]);
   });
 
   test('loadNightDetail gives the transits of one night in time order and their stars', async () => {

@@ -1,6 +1,6 @@
 // Cost of the overview's unchanged UWE pass before its reductions: building every night's change
-// key. "before" reads every transit body (the former nightQualityKey path); "after" counts each
-// night through the nightId index and reads the audit trail and imports (nightQualityStamps.ts).
+// key. "before" reads every transit body (the former nightQualityKey path); "after" reads each
+// night's tally (nightTallies) and reads the audit trail and imports (nightQualityStamps.ts).
 // Runs in Node on fake-indexeddb, on the shipped demo (invented, assets/demo) and on a generated
 // archive of 100,000 transits. Prints medians of 3 and os.loadavg(); asserts nothing.
 // `npx tsx unit/archive-view/nightQualityPass.bench.ts [transits]`
@@ -13,6 +13,7 @@ import { archiveContextKey, nightQualityKey } from '../../renderer/archive/night
 import { NightChangeLedger, nightStampKey, readNightStamps } from '../../renderer/archive/nightQualityStamps.ts';
 import { loadDemoIfFirstStart } from '../../renderer/demo/demoArchive.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
+import { rebuildNightTallies } from '../../renderer/store/nightTallies.ts';
 import { nightRow, siteRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 
 async function keysBefore(database: ArchiveDatabase): Promise<number> {
@@ -29,9 +30,9 @@ async function keysBefore(database: ArchiveDatabase): Promise<number> {
 
 async function keysAfter(database: ArchiveDatabase, ledger: NightChangeLedger): Promise<number> {
   const [sites, nights] = await Promise.all([database.sites.toArray(), database.nights.toArray()]);
-  const { counts } = await readNightStamps(database, nights, ledger);
+  const { tallies } = await readNightStamps(database, nights, ledger);
   const context = archiveContextKey(sites[0], [], []);
-  return new Map(nights.map((n) => [n.id, nightStampKey(context, n, counts.get(n.id) ?? 0, ledger.touched.get(n.id) ?? '')])).size;
+  return new Map(nights.map((n) => [n.id, nightStampKey(context, n, tallies.get(n.id) ?? 'n=0', ledger.touched.get(n.id) ?? '')])).size;
 }
 
 async function median(times: number, body: () => Promise<unknown>): Promise<number> {
@@ -68,6 +69,7 @@ async function generated(transitCount: number): Promise<ArchiveDatabase> {
     });
     await database.transits.bulkAdd(rows);
   }
+  await rebuildNightTallies(database); // written straight into the tables: the tallies as the app keeps them
   return database;
 }
 

@@ -5,6 +5,7 @@ import { describe, expect, test } from 'vitest';
 import type { ImportRecord } from '../../core/archive/records.ts';
 import { NightChangeLedger, nightStampKey, readNightStamps } from '../../renderer/archive/nightQualityStamps.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
+import { rebuildNightTallies } from '../../renderer/store/nightTallies.ts';
 import { nightRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 
 const NIGHTS = [nightRow('n-1'), nightRow('n-2'), nightRow('n-3')];
@@ -16,20 +17,24 @@ async function archive(): Promise<ArchiveDatabase> {
   return database;
 }
 
+// The tests write transits straight into the table; the tallies are then made as every writer of
+// transits keeps them (renderer/store/nightTallies.ts) before the stamps are read.
 async function keys(database: ArchiveDatabase, ledger: NightChangeLedger): Promise<{ keys: string[]; rewritten: boolean }> {
-  const { counts, rewritten } = await readNightStamps(database, NIGHTS, ledger);
-  return { rewritten, keys: NIGHTS.map((n) => nightStampKey('ctx', n, counts.get(n.id) ?? -1, ledger.touched.get(n.id) ?? '')) };
+  await rebuildNightTallies(database);
+  const { tallies, rewritten } = await readNightStamps(database, NIGHTS, ledger);
+  return { rewritten, keys: NIGHTS.map((n) => nightStampKey('ctx', n, tallies.get(n.id) ?? 'missing', ledger.touched.get(n.id) ?? '')) };
 }
 
 const audit = (key: string, nightId: string) => ({ key, value: { atUtc: key.split('/')[1], editor: 'T', table: 'transits', recordId: 'x', summary: 's', before: null, after: { nightId } } });
 const importRow = (id: string, status: ImportRecord['status']): ImportRecord => ({ id, fileName: 'f.csv', format: 'csv', status, startedUtc: '2026-01-01T00:00:00.000Z', finishedUtc: status === 'staging' ? null : '2026-01-01T00:01:00.000Z', rowCounts: {}, rejectedRows: [] });
 
 describe('readNightStamps(database, nights, ledger)', () => {
-  test('counts each night through the index and gives the same keys when nothing changed', async () => {
+  test('reads each night\'s tally and gives the same keys when nothing changed', async () => {
     const database = await archive();
     const ledger = new NightChangeLedger();
     const first = await keys(database, ledger);
-    expect((await readNightStamps(database, NIGHTS, new NightChangeLedger())).counts).toEqual(new Map([['n-1', 2], ['n-2', 2], ['n-3', 2]]));
+    const tallies = (await readNightStamps(database, NIGHTS, new NightChangeLedger())).tallies;
+    expect([...tallies.values()].map((t) => t.split('|').slice(0, 2).join('|'))).toEqual(['n=2|r=0', 'n=2|r=0', 'n=2|r=0']);
     expect(await keys(database, ledger)).toEqual(first);
     expect(new Set(first.keys).size).toBe(3);
   });
@@ -50,6 +55,15 @@ describe('readNightStamps(database, nights, ledger)', () => {
     const again = await keys(database, ledger);
     expect(again.keys.map((k, i) => k === edited.keys[i])).toEqual([false, true, true]);
     expect(await keys(database, ledger)).toEqual(again);
+  });
+
+  test('a transit rejected by hand changes its night\'s key through the tally, with no audit entry', async () => {
+    const database = await archive();
+    const ledger = new NightChangeLedger();
+    const before = await keys(database, ledger);
+    await database.transits.update('t-2-1', { userRejected: true });
+    const after = await keys(database, ledger);
+    expect(after.keys.map((k, i) => k === before.keys[i])).toEqual([true, false, true]);
   });
 
   test('an import committed changes the nights of its rows, not the others', async () => {

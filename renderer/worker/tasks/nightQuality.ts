@@ -50,7 +50,7 @@ let timeScale: TimeScale | null = null;
 
 /**
  * Reduces every visible night of the archive whose change key (nightStampKey: context, night
- * record, transit count, last edit or import commit; no transit body read) is not in the
+ * record, its tally, last edit or import commit; no transit body read) is not in the
  * cache, in chunks of NIGHT_QUALITY_CHUNK nights with progress in nights, and returns every
  * night's quality. A cancel is seen between chunks; the nights done by then stay cached.
  */
@@ -74,7 +74,7 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
       ledger.clear();
       stamps = await readNightStamps(database, nights, ledger);
     }
-    const keys = new Map(nights.map((n) => [n.id, nightStampKey(contextKey, n, stamps.counts.get(n.id) ?? 0, ledger.touched.get(n.id) ?? '')]));
+    const keys = new Map(nights.map((n) => [n.id, nightStampKey(contextKey, n, stamps.tallies.get(n.id) ?? 'n=0', ledger.touched.get(n.id) ?? '')]));
     const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined);
     cache.retainOnly(new Set(keys.keys()));
     timeScale ??= new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
