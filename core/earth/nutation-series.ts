@@ -69,9 +69,12 @@ function lunisolarSum(harmonics: FactoredHarmonics, t: number, termCount: number
   out[1] = deps;
 }
 
-/** Planetary sums (in 0.1 µas); arguments as in MHB2000 (see the IAU SOFA nut00a notes). */
-function planetarySum(t: number, out: Float64Array): void {
-  const p = planetaryArguments;
+/**
+ * The 13 planetary-term arguments of IAU 2000A at `t` (Julian centuries TT since J2000.0) into
+ * `p`: l, F, D, Ω as in MHB2000, the mean longitudes of Mercury … Neptune (Neptune MHB2000) and the
+ * general precession in longitude (see the IAU SOFA nut00a notes).
+ */
+export function fillPlanetaryArguments(t: number, p: Float64Array): void {
   p[0] = (2.35555598 + 8328.6914269554 * t) % TAU; // l, MHB2000
   p[1] = (1.627905234 + 8433.466158131 * t) % TAU; // F, MHB2000
   p[2] = (5.198466741 + 7771.3771468121 * t) % TAU; // D, MHB2000
@@ -85,13 +88,17 @@ function planetarySum(t: number, out: Float64Array): void {
   p[10] = arg.meanLongitudeUranus(t);
   p[11] = (5.321159 + 3.8127774 * t) % TAU; // Neptune, MHB2000
   p[12] = arg.generalPrecessionInLongitude(t);
-  const planetaryTermCount = PLANETARY_TERM_COUNT;
-  planetaryHarmonics.evaluate(p, planetaryTermCount);
-  const { sines, cosines } = planetaryHarmonics;
-  const amplitudes = PLANETARY_AMPLITUDES;
+}
+
+/**
+ * Sums (in 0.1 µas) of `termCount` planetary terms whose phases `harmonics` has just evaluated,
+ * with their amplitudes (4 per term, the published table's layout) in `amplitudes`.
+ */
+export function sumPlanetaryTerms(harmonics: HarmonicArguments, amplitudes: Float64Array, termCount: number, out: Float64Array): void {
+  const { sines, cosines } = harmonics;
   let dpsi = 0;
   let deps = 0;
-  for (let i = planetaryTermCount - 1; i >= 0; i--) {
+  for (let i = termCount - 1; i >= 0; i--) {
     const s = sines[i];
     const c = cosines[i];
     const a = 4 * i;
@@ -102,8 +109,24 @@ function planetarySum(t: number, out: Float64Array): void {
   out[1] = deps;
 }
 
+/** Planetary sums (in 0.1 µas) of all 687 terms at `t`. */
+function planetarySum(t: number, out: Float64Array): void {
+  fillPlanetaryArguments(t, planetaryArguments);
+  planetaryHarmonics.evaluate(planetaryArguments, PLANETARY_TERM_COUNT);
+  sumPlanetaryTerms(planetaryHarmonics, PLANETARY_AMPLITUDES, PLANETARY_TERM_COUNT, out);
+}
+
+/**
+ * Source of the planetary part for `nutation06aAtSteps`: writes its Δψ, Δε sums (in 0.1 µas) at
+ * TT `tt` (`t` the same in Julian centuries) into out[0], out[1]. PlanetaryNutationGrid
+ * (planetary-nutation-grid.ts) is one.
+ */
+export interface PlanetaryNutationSource {
+  planetarySums(tt: JulianDate, t: number, out: Float64Array): void;
+}
+
 /** IAU 2000A nutation at TT `tt` (full series; see the file header). */
-export function nutation00a(tt: JulianDate): Nutation {
+export function nutation00a(tt: JulianDate, planetary?: PlanetaryNutationSource): Nutation {
   const t = julianCenturiesSinceJ2000(tt);
   delaunay[0] = arg.meanAnomalyMoon(t);
   delaunay[1] = arg.meanAnomalySunMhb2000(t);
@@ -113,18 +136,22 @@ export function nutation00a(tt: JulianDate): Nutation {
   lunisolarSum(lunisolarHarmonics, t, LUNISOLAR_TERM_COUNT, sums);
   const dpsiLunisolar = sums[0];
   const depsLunisolar = sums[1];
-  planetarySum(t, sums);
+  if (planetary === undefined) planetarySum(t, sums);
+  else planetary.planetarySums(tt, t, sums);
   return {
     dpsiRad: dpsiLunisolar * TENTH_MICROARCSEC + sums[0] * TENTH_MICROARCSEC,
     depsRad: depsLunisolar * TENTH_MICROARCSEC + sums[1] * TENTH_MICROARCSEC,
   };
 }
 
-/** IAU 2000A nutation with the IAU 2006 (P03) adjustments, at TT `tt` (see the file header). */
-export function nutation06a(tt: JulianDate): Nutation {
+/**
+ * IAU 2000A nutation with the IAU 2006 (P03) adjustments, at TT `tt` (see the file header).
+ * `planetary`, when given, supplies the planetary part (e.g. interpolated from a grid).
+ */
+export function nutation06a(tt: JulianDate, planetary?: PlanetaryNutationSource): Nutation {
   const t = julianCenturiesSinceJ2000(tt);
   const secularJ2 = -2.7774e-6 * t;
-  const n = nutation00a(tt);
+  const n = nutation00a(tt, planetary);
   return { dpsiRad: n.dpsiRad + n.dpsiRad * (0.4697e-6 + secularJ2), depsRad: n.depsRad + n.depsRad * secularJ2 };
 }
 
@@ -165,8 +192,9 @@ let cachedStepDays = NaN;
  * ±0.5 day they move by less than 38 µas (Σ amplitude × rate × 0.5 d over all 687 terms).
  * Against nutation06a at each instant: < 0.05 mas for steps up to 0.25 day (asserted in
  * unit/astrometry/night-nutation.test.ts); 2000B for the change, as before, erred by up to 0.7 mas.
+ * `planetary`: as for nutation06a.
  */
-export function nutation06aAtSteps(centre: JulianDate, stepDays: number, out: Float64Array): void {
+export function nutation06aAtSteps(centre: JulianDate, stepDays: number, out: Float64Array, planetary?: PlanetaryNutationSource): void {
   if (stepDays !== cachedStepDays) {
     for (let i = 0; i < LUNISOLAR_TERM_COUNT; i++) {
       const turn = termRates[i] * stepDays;
@@ -177,7 +205,7 @@ export function nutation06aAtSteps(centre: JulianDate, stepDays: number, out: Fl
     }
     cachedStepDays = stepDays;
   }
-  const value = nutation06a(centre);
+  const value = nutation06a(centre, planetary);
   // nutation06a has just evaluated the luni-solar phases at the centre.
   const { sines, cosines } = lunisolarHarmonics;
   const amplitudes = LUNISOLAR_AMPLITUDES, turns = stepTurns;
