@@ -5,7 +5,17 @@
  */
 export function encodeUtf8(text: string): Uint8Array {
   const out = new Uint8Array(text.length * 3);
-  let length = 0;
+  return out.slice(0, encodeUtf8Into(text, out, 0));
+}
+
+/**
+ * encodeUtf8 written into `out` from `offset`, with no allocation (the bundle export encodes a
+ * million lines into a few large blocks); returns the offset after the last byte. `out` must have
+ * room for 3 bytes per UTF-16 code unit of `text` from `offset`, or a RangeError says so.
+ */
+export function encodeUtf8Into(text: string, out: Uint8Array, offset: number): number {
+  if (out.length - offset < text.length * 3) throw new RangeError(`encodeUtf8Into: ${out.length - offset} bytes of room for ${text.length} code units; give 3 per code unit`);
+  let length = offset;
   for (let i = 0; i < text.length; i++) {
     let code = text.charCodeAt(i);
     if (code >= 0xd800 && code <= 0xdfff) {
@@ -32,5 +42,5 @@ export function encodeUtf8(text: string): Uint8Array {
       out[length++] = 0x80 | (code & 0x3f);
     }
   }
-  return out.slice(0, length);
+  return length;
 }

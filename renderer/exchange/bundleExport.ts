@@ -1,4 +1,4 @@
-import { BundleWriter } from '../../core/archive/bundle-writer.ts';
+import { BundleWriter, type ByteSink } from '../../core/archive/bundle-writer.ts';
 import { TaskCancelledError, type TaskControl } from '../../core/task/task-control.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
@@ -42,7 +42,7 @@ export async function exportBundle(database: ArchiveDatabase, control: TaskContr
     const rows = snapshot[k].filter((row) => (row as { visibility?: string }).visibility !== 'staged');
     rowCounts[table.name] = rows.length;
     for (const row of rows) {
-      blocks.push(writer.rowBytes(row));
+      writer.rowInto(row, blocks);
       if (++done % EXPORT_CHUNK_ROWS === 0) {
         if (control.cancellation.isCancelled) throw new TaskCancelledError('the bundle export', done);
         control.reportProgress(done, total);
@@ -59,7 +59,7 @@ export async function exportBundle(database: ArchiveDatabase, control: TaskContr
 }
 
 /** Small byte arrays gathered into blocks of about BLOCK_BYTES (a Blob of a million parts is slow to build). */
-class ByteBlocks {
+class ByteBlocks implements ByteSink {
   static readonly BLOCK_BYTES = 4 << 20;
   readonly #blocks: Uint8Array[] = [];
   #current = new Uint8Array(ByteBlocks.BLOCK_BYTES);
@@ -73,6 +73,19 @@ class ByteBlocks {
     }
     this.#current.set(bytes, this.#used);
     this.#used += bytes.length;
+  }
+
+  reserve(maxBytes: number): { bytes: Uint8Array; offset: number } {
+    if (this.#used + maxBytes > this.#current.length) {
+      this.#blocks.push(this.#current.subarray(0, this.#used));
+      this.#current = new Uint8Array(Math.max(ByteBlocks.BLOCK_BYTES, maxBytes));
+      this.#used = 0;
+    }
+    return { bytes: this.#current, offset: this.#used };
+  }
+
+  commit(length: number): void {
+    this.#used += length;
   }
 
   finish(): Uint8Array[] {

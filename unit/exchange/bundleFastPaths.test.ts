@@ -57,3 +57,41 @@ describe('bundle lines without the replacer and reviver where no special number 
     expect(reader.finish().manifest.tables[0].rows).toBe(3);
   });
 });
+
+describe('BundleWriter.rowInto(row, sink)', () => {
+  test('writes the bytes of rowBytes into the sink, across a block too small for the next row, with the same SHA-256 (node:crypto)', () => {
+    const rows = [{ id: 'a', x: 1.5, note: 'é\u2028 𝔅' }, { id: 'b', x: -0, w: [Number.NaN, 2] }, { id: 'c', x: 3, note: 'x'.repeat(200) }];
+    const byBytes = new BundleWriter({ schemaVersion: 3, createdUtc: '2026-12-02T00:00:00Z', producer: 'test' });
+    const bySink = new BundleWriter({ schemaVersion: 3, createdUtc: '2026-12-02T00:00:00Z', producer: 'test' });
+    byBytes.start(); byBytes.beginTable('things');
+    bySink.start(); bySink.beginTable('things');
+    // Blocks of 128 bytes: the third row (≈ 230 bytes) must get a block of its own.
+    const blocks: Uint8Array[] = [];
+    let current = new Uint8Array(128);
+    let used = 0;
+    const sink = {
+      reserve(maxBytes: number) {
+        if (used + maxBytes > current.length) {
+          blocks.push(current.subarray(0, used));
+          current = new Uint8Array(Math.max(128, maxBytes));
+          used = 0;
+        }
+        return { bytes: current, offset: used };
+      },
+      commit(length: number) { used += length; },
+    };
+    const expected = createHash('sha256');
+    const expectedBytes: number[] = [];
+    for (const row of rows) {
+      const bytes = byBytes.rowBytes(row);
+      expected.update(bytes);
+      expectedBytes.push(...bytes);
+      bySink.rowInto(row, sink);
+    }
+    blocks.push(current.subarray(0, used));
+    expect(blocks.length).toBeGreaterThan(1);
+    expect(blocks.flatMap((block) => [...block])).toEqual(expectedBytes);
+    const manifest = JSON.parse(bySink.finish()) as { $manifest: { tables: { sha256: string; rows: number }[] } };
+    expect(manifest.$manifest.tables[0]).toMatchObject({ sha256: expected.digest('hex'), rows: 3 });
+  });
+});
