@@ -1,6 +1,7 @@
 import type { ArchiveContent } from '../archive-folder/archive-folder.ts';
 import { starMotion } from '../astrometry/space-motion.ts';
 import { type TaskControl, UNCONTROLLED } from '../task/task-control.ts';
+import { bundledEarthOrientationTable } from '../time/bundled-earth-orientation.ts';
 import { BUNDLED_LEAP_SECONDS } from '../time/bundled-leap-seconds.ts';
 import { TimeScale } from '../time/timescale.ts';
 import { ARCSEC, DEG } from '../units.ts';
@@ -26,7 +27,7 @@ export interface SimulatedArchive extends ArchiveContent {
 export const SIMULATOR_NAME = 'meridian-ledger archive simulator 1';
 const OBSERVERS = ['R. Halloway', 'M. Ostrander', 'T. Vell'];
 const LATITUDE_VARIATION_PERIOD_DAYS = 433;
-const SKY_MODEL = 'core/astrometry observedPlace (IAU 2006/2000A, relativistic aberration with Earth velocity × (κ₀+Δκ)/κ₀, diurnal aberration in the topocentric place, solar deflection, A tan Z + B tan³ Z refraction with the weather written with the transit or else the night); bundled leap seconds, no EOP table (UT1 − UTC = 0, no polar motion); Mayer factors and wire intervals at the topocentric (unrefracted) declination, as core/reduction reduces them (refraction of the image along the wires, ~10 ms/cos z over 30 s, is not modelled on either side); clamp west throughout';
+const SKY_MODEL = 'core/astrometry observedPlace (IAU 2006/2000A, relativistic aberration with Earth velocity × (κ₀+Δκ)/κ₀, diurnal aberration in the topocentric place, solar deflection, A tan Z + B tan³ Z refraction with the weather written with the transit or else the night); bundled leap seconds and the bundled IERS C04 Earth orientation (UT1 − UTC and polar motion of the day, 0 after the table ends), as the app and the CLI reduce it; Mayer factors and wire intervals at the topocentric (unrefracted) declination, as core/reduction reduces them (refraction of the image along the wires, ~10 ms/cos z over 30 s, is not modelled on either side); clamp west throughout';
 const CAMERA_SKY_MODEL = '; a fixed zenith camera times one reference column (Mayer correction with its own a, b, c) and reads row offsets in pixels, with its own drift, events and noise, no flexure';
 
 /**
@@ -52,7 +53,7 @@ export async function simulateArchive(request: SimulationRequest, control: TaskC
   const siteRad = { latitudeRad: site.latitudeDeg * DEG, longitudeRad: site.longitudeDeg * DEG, heightM: site.heightM };
   const common = {
     options, latitudeDeg: site.latitudeDeg, longitudeDeg: site.longitudeDeg, utcOffsetHours: INVENTED_SITE.utcOffsetHours,
-    sky: new SimulatedSky(siteRad, new TimeScale(BUNDLED_LEAP_SECONDS), options.deltaKappaArcsec * ARCSEC),
+    sky: new SimulatedSky(siteRad, new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable()), options.deltaKappaArcsec * ARCSEC),
     stars: programme.map((p) => p.truth),
     motions: programme.map(({ truth: t }) => starMotion({
       raRad: t.raDeg * DEG, decRad: t.decDeg * DEG, pmRaCosDecMasYr: t.pmRaMasYr, pmDecMasYr: t.pmDecMasYr,

@@ -6,10 +6,12 @@ import { readSolveInputs, type SolveInputs } from '../../core/joint/solve-inputs
 import { simulateArchive, type SimulatedArchive } from '../../core/simulate/simulate-archive.ts';
 import type { SimulationRequest } from '../../core/simulate/simulation-options.ts';
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
+import { bundledEarthOrientationTable } from '../../core/time/bundled-earth-orientation.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../core/time/timescale.ts';
 
-export const TIME_SCALE = new TimeScale(BUNDLED_LEAP_SECONDS);
+/** The bundled leap seconds and IERS C04 Earth orientation: the simulator's and the CLI's tables. */
+export const TIME_SCALE = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
 
 export async function simulatedInputs(request: SimulationRequest): Promise<{ archive: SimulatedArchive; inputs: SolveInputs; files: Map<string, Uint8Array> }> {
   const archive = await simulateArchive(request);

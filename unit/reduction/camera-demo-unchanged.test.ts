@@ -11,13 +11,14 @@ import { defaultNightConfiguration } from '../../core/reduction/night-inputs.ts'
 import { reduceObservingNight } from '../../core/reduction/reduce-observing-night.ts';
 import { simulateArchive } from '../../core/simulate/simulate-archive.ts';
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
+import { bundledEarthOrientationTable } from '../../core/time/bundled-earth-orientation.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../core/time/timescale.ts';
 import type { InstrumentRecord } from '../../core/formats/site-description.ts';
 import { expectReduced } from './reduce-helpers.ts';
 
 let inputs: SolveInputs;
-const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS);
+const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
 
 beforeAll(async () => {
   const archive = await simulateArchive({ seed: 41, years: 1, starCount: 16, blunderRate: 0, nightsPerYearTarget: 40, zenithCameraStarCount: 12 });

@@ -13,6 +13,7 @@ import { reduceObservingNight } from '../../core/reduction/reduce-observing-nigh
 import { simulateArchive, type SimulatedArchive } from '../../core/simulate/simulate-archive.ts';
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
+import { bundledEarthOrientationTable } from '../../core/time/bundled-earth-orientation.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../core/time/timescale.ts';
 
@@ -25,7 +26,7 @@ beforeAll(async () => {
 
 describe('simulated night → folder files → nightly reduction', () => {
   it('recovers azimuth, collimation and zenith zero point within 4 formal errors on the busiest nights', async () => {
-    const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS);
+    const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
     const bytes = (path: string) => encodeUtf8(files.get(path)!);
     const site = parseSiteDescription(bytes('site.json'), 'site.json').rows[0];
     const stars = parseStarList(bytes('stars.csv'), 'stars.csv').rows;

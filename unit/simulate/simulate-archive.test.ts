@@ -17,13 +17,14 @@ import { trueZenithDistanceRad, zenithDistanceFromReading } from '../../core/ins
 import { simulateArchive, type SimulatedArchive } from '../../core/simulate/simulate-archive.ts';
 import { TaskCancelledError } from '../../core/task/task-control.ts';
 import { skyWeather } from '../../core/simulate/simulate-night.ts';
+import { bundledEarthOrientationTable } from '../../core/time/bundled-earth-orientation.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { mjdToJulianDate } from '../../core/time/julian-date.ts';
 import { TimeScale } from '../../core/time/timescale.ts';
 import { ARCSEC, DEG, MAS, SECONDS_PER_DAY } from '../../core/units.ts';
 import { EARTH_ROTATION_RATE_RAD_PER_S } from '../../core/astrometry/constants.ts';
 
-const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS);
+const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
 const HOUR_ANGLE_RATE = EARTH_ROTATION_RATE_RAD_PER_S * SECONDS_PER_DAY; // rad per day (IERS Conventions 2010 eq. 5.15)
 let archive: SimulatedArchive;
 

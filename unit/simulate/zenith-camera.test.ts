@@ -14,6 +14,7 @@ import { simulateArchive, type SimulatedArchive } from '../../core/simulate/simu
 import { resolveSimulationOptions } from '../../core/simulate/simulation-options.ts';
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
+import { bundledEarthOrientationTable } from '../../core/time/bundled-earth-orientation.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../core/time/timescale.ts';
 
@@ -76,7 +77,7 @@ describe('simulateArchive with zenithCameraStarCount > 0', () => {
   });
 
   it('the nightly reduction takes a camera night: collimation and zenith zero within 4 formal errors', async () => {
-    const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS);
+    const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
     const bytes = (path: string) => encodeUtf8(files.get(path)!);
     const site = parseSiteDescription(bytes('site.json'), 'site.json').rows[0];
     const camera = site.instruments.find((i) => i.id === CAMERA)!;

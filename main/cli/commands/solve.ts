@@ -6,6 +6,7 @@ import { prepareArchive } from '../../../core/joint/prepare-archive.ts';
 import { JointSolveRefused, solveArchive, type ArchiveSolveResult } from '../../../core/joint/solve-archive.ts';
 import { readSolveInputs } from '../../../core/joint/solve-inputs.ts';
 import { solveResultJson } from '../../../core/joint/solve-result-json.ts';
+import { bundledEarthOrientationTable } from '../../../core/time/bundled-earth-orientation.ts';
 import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
 import { TimeScale } from '../../../core/time/timescale.ts';
 import { readArchiveFolderFiles } from '../../archive/archive-folder-files.ts';
@@ -145,6 +146,8 @@ export const solveCommand: Command = {
     if (model === null) return EXIT_FAILED;
     const { inputs, problems } = readSolveInputs(await readArchiveFolderFiles(dir));
     if (inputs === null) { for (const p of problems) io.stderr.write(`solve: ${p}\n`); return EXIT_FAILED; }
+    // The bundled leap seconds and IERS C04 Earth orientation, as `night` and `predict` use them.
+    const timeScale = new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
     const started = performance.now();
     const control = {
       cancellation: { isCancelled: false },
@@ -154,17 +157,17 @@ export const solveCommand: Command = {
     let result: ArchiveSolveResult;
     try {
       if (compare !== null) {
-        const comparison = compareTerm(await prepareArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control), model, compare, control);
+        const comparison = compareTerm(await prepareArchive(inputs, model, timeScale, control), model, compare, control);
         io.stdout.write(json ? `${JSON.stringify(comparison, null, 2)}\n` : comparisonReport(comparison));
         return EXIT_OK;
       }
       if (crossValidate) {
-        const prepared = await prepareArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control);
+        const prepared = await prepareArchive(inputs, model, timeScale, control);
         const cv = crossValidateYears(prepared, model, control, { onFold: (year, done, total) => io.stderr.write(`solve: fold ${done} of ${total} (without ${year}) solved\n`) });
         io.stdout.write(json ? `${JSON.stringify(cv, null, 2)}\n` : crossValidationReport(cv));
         return EXIT_OK;
       }
-      result = await solveArchive(inputs, model, new TimeScale(BUNDLED_LEAP_SECONDS), control, (p) => { if (p.fraction === 1 && p.phase === 'solve') io.stderr.write(`solve: joint pass ${p.iteration} of at most ${p.iterationLimit}\n`); });
+      result = await solveArchive(inputs, model, timeScale, control, (p) => { if (p.fraction === 1 && p.phase === 'solve') io.stderr.write(`solve: joint pass ${p.iteration} of at most ${p.iterationLimit}\n`); });
     } catch (error) {
       if (error instanceof JointSolveRefused) { io.stderr.write(`solve: ${error.message}\n`); return EXIT_FAILED; }
       throw error;

@@ -7,12 +7,11 @@ import { SolveCancelled } from '../../../core/solver/index.ts';
 import { readSolveInputs } from '../../../core/joint/solve-inputs.ts';
 import { observationResiduals } from '../../../core/joint/solve-outputs.ts';
 import { TaskCancelledError, type TaskControl } from '../../../core/task/task-control.ts';
-import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
-import { TimeScale } from '../../../core/time/timescale.ts';
 import { folderFingerprint } from '../../solve/folderFingerprint.ts';
 import { archiveContentFromStore, type SolveSelection } from '../../solve/solveSelection.ts';
 import { solveResultJson } from '../../../core/joint/solve-result-json.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
+import { archiveTimeScale } from './archiveTimeScale.ts';
 import { nowUtcIso } from '../../store/nowUtcIso.ts';
 
 export interface JointSolveRequest {
@@ -50,7 +49,8 @@ async function honourCancel(control: TaskControl, done: number): Promise<void> {
 
 /**
  * The joint solve of the stored archive in the worker (core/joint/solve-archive.ts with the
- * bundled leap seconds, as the CLI runs it), saved as a ReductionRecord whose results have the
+ * archive's leap seconds and Earth orientation: the bundled tables with whatever IERS files were
+ * imported, as Tonight and the overview use them), saved as a ReductionRecord whose results have the
  * shape of `solve --json` and whose residuals are one row per transit. Cancel is seen between
  * nights of the nightly reductions; the joint passes are synchronous, so a cancel sent while they
  * run is honoured when they end, before anything is saved.
@@ -63,7 +63,8 @@ export async function runJointSolve(request: JointSolveRequest, control: TaskCon
       ...control,
       reportProgress: (done, total) => control.reportProgress(Math.round((NIGHTLY_SHARE * done) / Math.max(total, 1)), SOLVE_PROGRESS_TOTAL),
     };
-    const prepared = await prepareArchive(inputs, request.model, new TimeScale(BUNDLED_LEAP_SECONDS), nightly);
+    const { scale } = await archiveTimeScale(database);
+    const prepared = await prepareArchive(inputs, request.model, scale, nightly);
     await honourCancel(control, NIGHTLY_SHARE);
     let result: ArchiveSolveResult;
     try {
