@@ -19,7 +19,7 @@ export const TERM_GROUPS: readonly { readonly title: string; readonly terms: rea
     { key: 'refractionScale', label: 'Refraction scale' },
     { key: 'temperature', label: 'Temperature coefficients' },
     { key: 'seasonal', label: 'Annual instrument term' },
-    { key: 'latitudeVariation', label: 'Latitude variation (433-day)' },
+    { key: 'latitudeVariation', label: 'Latitude variation (periods below)' },
     { key: 'diurnalAberrationScale', label: 'Diurnal-aberration scale' },
   ] },
   { title: 'Instrument, per night or per segment', terms: [
@@ -55,7 +55,26 @@ export const SETTINGS: readonly TermSetting[] = ['free', 'fixed', 'absent'];
 export function modelProblems(model: JointModel): string[] {
   return NUMBER_FIELDS.filter((f) => !(Number.isFinite(model[f.key]) && model[f.key] >= f.min && model[f.key] <= f.max))
     .map((f) => `${f.label} must be a number from ${f.min} to ${f.max} (got ${model[f.key]}).`)
-    .concat(catalogueProblems(model));
+    .concat(catalogueProblems(model), periodProblems(model));
+}
+
+/** The periods of the latitude-variation term (days), range as parseJointModel accepts them. */
+export const LATITUDE_PERIOD_RANGE_DAYS = { min: 30, max: 3000, most: 4 } as const;
+
+/**
+ * The periods typed in the form, "433, 365.25" or "433 365.25": one number per entry, NaN for an
+ * entry that is not a number (modelProblems then names it), so the model always holds what was typed.
+ */
+export function parsePeriodsText(text: string): number[] {
+  return text.split(/[\s,;]+/).filter((part) => part !== '').map((part) => (/^[+-]?(\d+\.?\d*|\.\d+)$/.test(part) ? Number(part) : Number.NaN));
+}
+
+function periodProblems(model: JointModel): string[] {
+  if (model.latitudeVariation === 'absent') return [];
+  const periods = model.latitudeVariationPeriodsDays;
+  const { min, max, most } = LATITUDE_PERIOD_RANGE_DAYS;
+  if (periods.length < 1 || periods.length > most) return [`Latitude-variation periods: give 1 to ${most} periods in days (got ${periods.length}).`];
+  return periods.flatMap((p, k) => (Number.isFinite(p) && p >= min && p <= max ? [] : [`Latitude-variation period ${k + 1} must be a number of days from ${min} to ${max} (got ${Number.isNaN(p) ? 'text that is not a number' : p}).`]));
 }
 
 function catalogueProblems(model: JointModel): string[] {

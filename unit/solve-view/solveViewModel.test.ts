@@ -5,7 +5,7 @@ import { DEFAULT_JOINT_MODEL, parseJointModel } from '../../core/joint/joint-mod
 import type { NightInstrumentTerms } from '../../core/joint/solve-outputs.ts';
 import { compareSolves } from '../../renderer/solve/compareSolves.ts';
 import { instrumentSummary } from '../../renderer/solve/instrumentSummary.ts';
-import { modelDifferences, modelProblems, NUMBER_FIELDS, TERM_GROUPS } from '../../renderer/solve/modelTerms.ts';
+import { LATITUDE_PERIOD_RANGE_DAYS, modelDifferences, modelProblems, NUMBER_FIELDS, parsePeriodsText, TERM_GROUPS } from '../../renderer/solve/modelTerms.ts';
 import { degeneraciesOfStar, type SavedResults } from '../../renderer/solve/savedResults.ts';
 import { EMPTY_SELECTION_FORM, selectionFromForm } from '../../renderer/solve/selectionForm.ts';
 
@@ -90,5 +90,26 @@ describe('modelProblems(model) for the catalogue priors', () => {
     const withPriors = { ...DEFAULT_JOINT_MODEL, catalogueSigma: { default: { positionMas: 0, pmMasYr: 0.7 }, stars: {} } };
     expect(modelProblems(withPriors)).toEqual(['Catalogue position, σ (mas) must be a number above 0 (got 0).']);
     expect(modelDifferences(DEFAULT_JOINT_MODEL, withPriors)).toEqual(['Catalogue precision: none → 0 mas and 0.7 mas/yr']);
+  });
+});
+
+describe('parsePeriodsText(text) and the latitude-variation periods', () => {
+  it('reads "433, 365.25" and "433 365.25" alike; a word becomes NaN so the form names it', () => {
+    expect(parsePeriodsText('433, 365.25')).toEqual([433, 365.25]);
+    expect(parsePeriodsText(' 433  365.25 ')).toEqual([433, 365.25]);
+    expect(parsePeriodsText('433, 1e3')).toEqual([433, Number.NaN]);
+    expect(parsePeriodsText('')).toEqual([]);
+  });
+  it('modelProblems names an out-of-range, missing or unreadable period only when the term is in the model', () => {
+    const free = { ...DEFAULT_JOINT_MODEL, latitudeVariation: 'free' as const };
+    expect(modelProblems(free)).toEqual([]);
+    expect(modelProblems({ ...free, latitudeVariationPeriodsDays: [433, 12] })).toEqual(['Latitude-variation period 2 must be a number of days from 30 to 3000 (got 12).']);
+    expect(modelProblems({ ...free, latitudeVariationPeriodsDays: parsePeriodsText('433, x') })[0]).toMatch(/period 2 .*not a number/);
+    expect(modelProblems({ ...free, latitudeVariationPeriodsDays: [] })[0]).toMatch(/give 1 to 4 periods/);
+    expect(modelProblems({ ...DEFAULT_JOINT_MODEL, latitudeVariationPeriodsDays: [] })).toEqual([]);
+    // The form's range is the model parser's: both ends accepted, one step beyond refused.
+    const { min, max } = LATITUDE_PERIOD_RANGE_DAYS;
+    expect(parseJointModel(JSON.stringify({ latitudeVariationPeriodsDays: [min, max] })).problems).toEqual([]);
+    expect(parseJointModel(JSON.stringify({ latitudeVariationPeriodsDays: [max + 1] })).problems).toHaveLength(1);
   });
 });
