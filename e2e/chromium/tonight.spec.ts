@@ -72,3 +72,40 @@ test('the Tonight view lists the programme in time order, logs a transit by keyb
   const scan = await scanScreenshot(page, await page.screenshot({ fullPage: false }), 4);
   expect(scan.offending, 'pixels with green or blue above 4/255 in Tonight').toBe(0);
 });
+
+test('on a later launch Tonight shows the programme from the last session\'s copy while the archive is still opening, and entries wait for it', async ({ page }) => {
+  test.setTimeout(90_000);
+  await page.setViewportSize({ width: 1400, height: 1000 });
+  await page.clock.install({ time: EVENING });
+  await page.goto('./#/tonight');
+  const rows = page.getByTestId('programme').locator('tbody tr');
+  await expect.poll(() => rows.count(), { timeout: 30_000 }).toBeGreaterThan(20);
+  const shown = await rows.count();
+  await expect(page.getByText(/^Tables: /)).not.toContainText('still opening');
+
+  // The next launch: the archive's store takes 4 s to answer (as a million-transit archive may,
+  // 1–3 s on 2 cores): openArchive's first IndexedDB call is held back that long.
+  await page.addInitScript(() => {
+    const original = IDBFactory.prototype.databases;
+    IDBFactory.prototype.databases = function (this: IDBFactory) {
+      return new Promise((resolve) => setTimeout(resolve, 4000)).then(() => original.call(this));
+    };
+  });
+  await page.reload();
+  await expect(page.getByText(/^Tables: .*the archive is still opening/)).toBeVisible({ timeout: 3_000 });
+  await expect(rows).toHaveCount(shown);
+  // A wrong star is refused at once from the copy; a transit typed now is written once the archive is open.
+  await page.getByLabel('Star id').fill('ZZ-0');
+  await expect(page.locator('#log-star-hint')).toContainText('is not in tonight\'s programme');
+  await page.getByLabel('Star id').fill('');
+  await page.getByLabel('Star id').press('Enter');
+  await page.keyboard.type(((await page.getByTestId('expected-wires').textContent()) ?? '').trim());
+  await page.keyboard.press('Enter');
+  await page.keyboard.type(((await page.locator('#log-reading-hint').textContent()) ?? '').replace('set at', '').trim());
+  await page.keyboard.press('Enter');
+  await expect(page.getByText(/^Tables: .*the archive is still opening/)).toBeVisible(); // typed and accepted before the archive opened
+  await expect(page.getByText(/^Logged \S+ and saved to the archive\.$/)).toBeVisible({ timeout: 15_000 });
+  await expect(page.getByText(/^Tables: /)).not.toContainText('still opening');
+  await expect(rows).toHaveCount(shown);
+  await expect(page.getByTestId('logged-transits').locator('tbody tr')).toHaveCount(1);
+});

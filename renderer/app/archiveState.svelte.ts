@@ -1,5 +1,5 @@
 import type { BeforeUpgrade } from '../exchange/preUpgradeBackup.ts';
-import type { ArchiveDatabase } from '../store/database.ts';
+import { ARCHIVE_DATABASE_NAME, type ArchiveDatabase } from '../store/database.ts';
 import type { ArchiveOpenFailure } from '../store/describeOpenFailure.ts';
 import { openArchive } from '../store/openArchive.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
@@ -17,6 +17,8 @@ export class ArchiveState {
   sweptImports = $state(0);
   /** Why the demo archive could not be loaded on first start, if it could not. */
   demoFailure = $state('');
+  /** The IndexedDB database the archive is (being) opened from. */
+  databaseName = $state(ARCHIVE_DATABASE_NAME);
 
   /**
    * Opens the archive, sweeps interrupted imports, restores the demo archive on the very first
@@ -25,7 +27,8 @@ export class ArchiveState {
    * the old archive up there, renderer/exchange/preUpgradeBackup.ts).
    */
   async start(storage: StorageManagerLike | undefined, databaseName?: string, fetchDemo?: () => Promise<Uint8Array>, beforeUpgrade?: BeforeUpgrade): Promise<void> {
-    const result = await openArchive(databaseName, beforeUpgrade);
+    this.databaseName = databaseName ?? ARCHIVE_DATABASE_NAME;
+    const result = await openArchive(this.databaseName, beforeUpgrade);
     if (result.kind === 'open') {
       this.sweptImports = await sweepInterruptedImports(result.database, nowUtcIso());
       if (fetchDemo !== undefined) {

@@ -6,6 +6,7 @@ import { loadChoices, saveChoices, type TonightChoices } from './draftStorage.ts
 import { nightWindowAt, nightWindowOfDate, type NightWindow } from './nightWindow.ts';
 import { nextObservableIndex, programmeRows, type ProgrammeRow, type TonightSetting } from './programmeRows.ts';
 import { findNight, nightTransits } from './tonightStore.ts';
+import { loadProgrammeInputs, saveProgrammeInputs, type ProgrammeInputs } from './programmeSnapshot.ts';
 
 const MJD_OF_UNIX_EPOCH = 40_587;
 /** After 06:00 local mean time "tonight" is the coming evening (common practice for night logs). */
@@ -33,12 +34,21 @@ export class TonightState {
   night = $state.raw<NightRecord | null>(null);
   logged = $state.raw<readonly TransitRecord[]>([]);
   nowMs = $state(Date.now());
-  readonly database: ArchiveDatabase;
+  /** The archive, once open; until then the programme comes from the last session's copy (programmeSnapshot.ts). */
+  database = $state.raw<ArchiveDatabase | null>(null);
   readonly #compute: ComputeClient;
+  readonly #databaseName: string;
+  readonly #storage: Storage | null;
+  #opened: (database: ArchiveDatabase) => void = () => {};
+  /** Resolves with the archive once it is open: writes wait for it. */
+  readonly whenOpen = new Promise<ArchiveDatabase>((resolve) => (this.#opened = resolve));
+  /** Numbers the programme requests, so that only the newest one's answer is shown. */
+  #request = 0;
 
-  constructor(database: ArchiveDatabase, compute: ComputeClient) {
-    this.database = database;
+  constructor(compute: ComputeClient, databaseName: string, storage: Storage | null) {
     this.#compute = compute;
+    this.#databaseName = databaseName;
+    this.#storage = storage;
   }
 
   readonly site = $derived(this.sites.find((s) => s.id === this.choices.siteId) ?? this.sites[0]);
@@ -76,11 +86,31 @@ export class TonightState {
   readonly loggedKeys = $derived(new Set(this.rows.filter((row) => this.logged.some((t) => t.starId === row.star.id && t.culmination === row.transit.culmination && Math.abs(t.utcMjd - row.transit.utcMjd) < 20 / 1440)).map((row) => row.key)));
   readonly nextIndex = $derived(nextObservableIndex(this.rows, this.nowUtcMjd, this.loggedKeys));
 
-  async load(): Promise<void> {
+  /** Shows the last session's copy of the sites, instruments and stars; false when there is none. */
+  showCopy(): boolean {
+    const copy = loadProgrammeInputs(this.#storage, this.#databaseName);
+    if (copy === null) return false;
+    this.#take(copy);
+    return true;
+  }
+
+  /** Reads the sites, instruments and stars from the open archive (over any copy) and keeps a copy for the next launch. */
+  async attach(database: ArchiveDatabase): Promise<void> {
     const visible = <T extends { visibility: string }>(rows: T[]) => rows.filter((row) => row.visibility === 'visible');
-    this.sites = visible(await this.database.sites.orderBy('label').toArray());
-    this.instruments = visible(await this.database.instruments.orderBy('label').toArray());
-    this.stars = visible(await this.database.stars.orderBy('catalogueId').toArray());
+    const [sites, instruments, stars] = await Promise.all([
+      database.sites.orderBy('label').toArray(), database.instruments.orderBy('label').toArray(), database.stars.orderBy('catalogueId').toArray(),
+    ]);
+    const inputs = { sites: visible(sites), instruments: visible(instruments), stars: visible(stars) };
+    this.database = database;
+    this.#take(inputs);
+    this.#opened(database);
+    saveProgrammeInputs(this.#storage, database.name, inputs);
+  }
+
+  #take(inputs: ProgrammeInputs): void {
+    this.sites = inputs.sites;
+    this.instruments = inputs.instruments;
+    this.stars = inputs.stars;
     this.settleChoices();
   }
 
@@ -98,13 +128,18 @@ export class TonightState {
   /** Reads tonight's night record and its transits (after a write, or a change of night). */
   async loadNight(): Promise<void> {
     const window = this.window;
-    if (this.instrument === undefined || window === null) return;
-    const night = await findNight(this.database, this.instrument.id, window.localDate);
+    const database = this.database;
+    if (this.instrument === undefined || window === null || database === null) return;
+    const night = await findNight(database, this.instrument.id, window.localDate);
     this.night = night ?? null;
-    this.logged = night === undefined ? [] : await nightTransits(this.database, night.id);
+    this.logged = night === undefined ? [] : await nightTransits(database, night.id);
   }
 
-  /** Computes the programme in the worker for the chosen site, night and weather. */
+  /**
+   * Computes the programme in the worker for the chosen site, night and weather: with the
+   * archive's leap seconds and Earth orientation once it is open, with the bundled tables before
+   * (tablesInUse says which). A request overtaken by a newer one leaves the newer one's answer.
+   */
   async computeProgramme(): Promise<void> {
     const window = this.window;
     const site = this.site;
@@ -115,10 +150,12 @@ export class TonightState {
       pressureHpa: w.pressureHpa, temperatureC: w.temperatureC, relativeHumidity: w.relativeHumidityPercent / 100,
       wavelengthUm: (this.instrument?.effectiveWavelengthNm ?? 550) / 1000,
     };
+    const request = ++this.#request;
     const job = this.#compute.run({
-      kind: 'tonight-programme', site, stars: this.stars, fromUtcMjd: window.fromUtcMjd, untilUtcMjd: window.untilUtcMjd, weather, databaseName: this.database.name,
+      kind: 'tonight-programme', site, stars: this.stars, fromUtcMjd: window.fromUtcMjd, untilUtcMjd: window.untilUtcMjd, weather, databaseName: this.database?.name,
     });
     const outcome = await job.outcome;
+    if (request !== this.#request) return;
     if (outcome.kind === 'finished' && outcome.result.kind === 'tonight-programme') {
       this.transits = outcome.result.transits;
       this.notes = outcome.result.notes;
