@@ -2,11 +2,12 @@
 // through the built app. Prints figures (median, p95) against the targets with the machine's load;
 // asserts none. BENCH_TRANSITS sets the archive size (default 1,000,000), BENCH_RESIDUALS the
 // residual plot's size (default 200,000), BENCH_PORT the preview port (default 4435), BENCH_PARTS
-// the timed parts (first-view, zoom, typing; all by default).
+// the timed parts (first-view, zoom, typing; all by default), BENCH_PROFILE a browser profile folder
+// to keep and reuse (filled once per archive size; a later run on it skips the set-up).
 // The archive is written straight into IndexedDB (the app's own schema, records cloned from one
 // the app imported itself), outside every timed part. Invented scenario: no real site or star.
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from '@playwright/test';
@@ -17,6 +18,8 @@ import { fillArchive, seedReduction } from './interfaceArchive.ts';
 const TRANSITS = Number(process.env.BENCH_TRANSITS ?? 1_000_000);
 const RESIDUALS = Number(process.env.BENCH_RESIDUALS ?? 200_000);
 const PORT = Number(process.env.BENCH_PORT ?? 4435);
+// renderer/tonight/programmeSnapshot.ts's localStorage key (the bench may not import the renderer's DOM code).
+const PROGRAMME_COPY_KEY = 'meridian-ledger:tonight-programme-inputs';
 const BASE = `http://127.0.0.1:${PORT}/`;
 const LAUNCHES = 5;
 const ZOOMS = 30;
@@ -64,10 +67,11 @@ async function launch(profile: string): Promise<BrowserContext> {
  * the control, uses it, and waits (every frame) for its answer; both times are the page's own
  * clock (performance.now(), whose zero is the navigation start).
  */
-async function firstViewInteractive(profile: string, hash: string, use: (page: Page) => Promise<number>): Promise<{ ready: number; answered: number; domContentLoaded: number }[]> {
+async function firstViewInteractive(profile: string, hash: string, use: (page: Page) => Promise<number>, beforeLaunch = ''): Promise<{ ready: number; answered: number; domContentLoaded: number }[]> {
   const runs = [];
   for (let k = 0; k < LAUNCHES; k++) {
     const context = await launch(profile);
+    if (beforeLaunch !== '') await context.addInitScript({ content: beforeLaunch });
     const page = context.pages()[0] ?? (await context.newPage());
     await page.goto(`${BASE}?no-demo${hash}`, { waitUntil: 'commit' });
     const answered = await use(page);
@@ -169,22 +173,42 @@ async function typingTimes(page: Page): Promise<{ toText: number[]; toFrame: num
 
 async function main(): Promise<void> {
   const server = await preview({ configFile: 'renderer/vite.config.ts', preview: { host: '127.0.0.1', port: PORT, strictPort: true, open: false } });
-  const profile = mkdtempSync(path.join(os.tmpdir(), 'ml-interface-profile-'));
+  const kept = process.env.BENCH_PROFILE;
+  const profile = kept ?? mkdtempSync(path.join(os.tmpdir(), 'ml-interface-profile-'));
+  // The marker says that a kept profile already holds an archive of these sizes.
+  const marker = path.join(profile, `meridian-ledger-bench-${TRANSITS}-${RESIDUALS}`);
+  if (kept !== undefined) mkdirSync(kept, { recursive: true });
   let context = await launch(profile);
   try {
-    const page = await context.newPage();
-    page.setDefaultTimeout(600_000);
     console.log(`Meridian Ledger interface benchmark — headless Chromium, ${os.cpus().length} cores, load average at start ${load()}`);
-    const fillStart = performance.now();
-    const filled = await fillArchive(page, BASE, TRANSITS);
-    console.log(`archive written into IndexedDB (untimed set-up): ${filled.nights.toLocaleString('en')} nights, ${filled.transits.toLocaleString('en')} transits, ${filled.stars} stars in ${((performance.now() - fillStart) / 1000).toFixed(1)} s`);
-    const solve = smallSolve();
-    const seeded = await seedReduction(page, solve, RESIDUALS);
-    console.log(`saved reduction with ${seeded.toLocaleString('en')} residuals seeded (untimed set-up)`);
+    if (existsSync(marker)) {
+      console.log(`reusing the archive already written into ${profile} (BENCH_PROFILE)`);
+    } else {
+      const page = await context.newPage();
+      page.setDefaultTimeout(600_000);
+      const fillStart = performance.now();
+      const filled = await fillArchive(page, BASE, TRANSITS);
+      console.log(`archive written into IndexedDB (untimed set-up): ${filled.nights.toLocaleString('en')} nights, ${filled.transits.toLocaleString('en')} transits, ${filled.stars} stars in ${((performance.now() - fillStart) / 1000).toFixed(1)} s`);
+      const solve = smallSolve();
+      const seeded = await seedReduction(page, solve, RESIDUALS);
+      console.log(`saved reduction with ${seeded.toLocaleString('en')} residuals seeded (untimed set-up)`);
+      if (kept !== undefined) writeFileSync(marker, `${new Date().toISOString()}\n`);
+    }
     await context.close();
 
     if (PARTS.has('first-view')) {
+      // One untimed launch first, as by someone who has used the app before: any schema upgrade
+      // has run and Tonight has kept its copy of the programme's inputs (renderer/tonight/programmeSnapshot.ts).
+      const warmStart = performance.now();
+      const warm = await launch(profile);
+      const warmPage = warm.pages()[0] ?? (await warm.newPage());
+      await warmPage.goto(`${BASE}?no-demo#/tonight`, { waitUntil: 'commit' });
+      await tonightAnswers(warmPage);
+      await warmPage.waitForFunction(() => !/still opening/.test(document.body.textContent ?? ''), null, { timeout: 600_000 });
+      await warm.close();
+      console.log(`untimed warm-up launch (Tonight, archive opened): ${((performance.now() - warmStart) / 1000).toFixed(1)} s`);
       const tonight = await firstViewInteractive(profile, '#/tonight', tonightAnswers);
+      const noCopy = await firstViewInteractive(profile, '#/tonight', tonightAnswers, `localStorage.removeItem('${PROGRAMME_COPY_KEY}');`);
       const archive = await firstViewInteractive(profile, '#/archive', archiveAnswers);
       console.log(`\nload average after the first views: ${load()}`);
       const report = (name: string, runs: { ready: number; answered: number; domContentLoaded: number }[]) => {
@@ -192,6 +216,7 @@ async function main(): Promise<void> {
         console.log(`   of which: DOMContentLoaded ${ms(summary(runs.map((r) => r.domContentLoaded)))}; control present ${ms(summary(runs.map((r) => r.ready)))}`);
       };
       report('Tonight (the default view)', tonight);
+      report('Tonight without the copy of the last session (as on the very first launch)', noCopy);
       report('Archive (every night marked)', archive);
     }
     context = await launch(profile);
@@ -221,7 +246,7 @@ async function main(): Promise<void> {
     if (TRANSITS < 1_000_000) console.log(`(BENCH_TRANSITS=${TRANSITS}: a smaller archive than the 1,000,000 of the targets)`);
   } finally {
     await context.close();
-    rmSync(profile, { recursive: true, force: true });
+    if (kept === undefined) rmSync(profile, { recursive: true, force: true });
     await new Promise<void>((resolve) => server.httpServer.close(() => resolve()));
   }
 }

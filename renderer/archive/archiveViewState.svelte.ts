@@ -35,13 +35,19 @@ export class ArchiveViewState {
     this.#editor = new ArchiveEditor(database, () => this.editorName);
   }
 
+  /**
+   * Reads what the view shows, each part shown as soon as it is read: the nights (from their
+   * tallies) come first, the star programme's counts (one index range per star, a second or more
+   * at 1,000,000 transits) need not hold the overview back.
+   */
   async load(): Promise<void> {
     try {
-      const [nights, stars, instruments, editorName] = await Promise.all([
-        loadNightSummaries(this.#database), loadStarProgramme(this.#database),
-        loadInstruments(this.#database), readEditorName(this.#database),
+      await Promise.all([
+        loadNightSummaries(this.#database).then((nights) => (this.nights = nights)),
+        loadInstruments(this.#database).then((instruments) => (this.instruments = instruments)),
+        readEditorName(this.#database).then((editorName) => (this.editorName = editorName)),
+        loadStarProgramme(this.#database).then((stars) => (this.stars = stars)),
       ]);
-      Object.assign(this, { nights, stars, instruments, editorName });
       this.audit = await recentAuditEntries(this.#database, AUDIT_LINES);
       this.problem = null;
     } catch (error) {
