@@ -1,8 +1,8 @@
 import type { StarRecord } from '../archive/records.ts';
-import { parseStarList } from '../formats/star-list.ts';
+import { parseStarList, type StarListRow } from '../formats/star-list.ts';
 import { csvFile, type FolderRejection, numberText } from './folder-text.ts';
 
-const HEADER = ['id', 'label', 'raDeg', 'decDeg', 'epochJyear', 'pmRaCosDecMasYr', 'pmDecMasYr', 'parallaxMas', 'parallaxSigmaMas', 'radialVelocityKmS', 'magnitude', 'source', 'programme'];
+const HEADER = ['id', 'label', 'raDeg', 'decDeg', 'epochJyear', 'pmRaCosDecMasYr', 'pmDecMasYr', 'parallaxMas', 'parallaxSigmaMas', 'positionSigmaMas', 'pmSigmaMasYr', 'radialVelocityKmS', 'magnitude', 'source', 'programme'];
 
 /**
  * The programme stars as H4's star list (FORMATS.md). The list has one id column: it carries the
@@ -19,11 +19,21 @@ export function writeStarFile(stars: readonly StarRecord[]): string {
       star.catalogueId, star.label, numberText(star.raDeg, where), numberText(star.decDeg, where), numberText(star.catalogueEpochJulianYear, where),
       numberText(star.pmRaMasYr, where), numberText(star.pmDecMasYr, where), numberText(star.parallaxMas, where),
       star.parallaxErrorMas === 0 ? '' : numberText(star.parallaxErrorMas, where),
+      star.positionErrorMas === undefined ? '' : numberText(star.positionErrorMas, where),
+      star.pmErrorMasYr === undefined ? '' : numberText(star.pmErrorMasYr, where),
       star.radialVelocityKmS === 0 ? '' : numberText(star.radialVelocityKmS, where),
       star.magnitude === null ? '' : numberText(star.magnitude, where), star.source, star.programmes.join(';'),
     ];
   });
   return csvFile(HEADER, rows);
+}
+
+/** The row's stated position and proper-motion σ as record fields, left out when unknown. */
+export function statedErrors(row: StarListRow): Pick<StarRecord, 'positionErrorMas' | 'pmErrorMasYr'> {
+  return {
+    ...(row.positionSigmaMas == null ? {} : { positionErrorMas: row.positionSigmaMas }),
+    ...(row.pmSigmaMasYr == null ? {} : { pmErrorMasYr: row.pmSigmaMasYr }),
+  };
 }
 
 /**
@@ -41,7 +51,7 @@ export function readStarFile(bytes: Uint8Array, file: string, audit: { createdUt
     return {
       id: row.id, catalogueId: row.id, label: row.label, raDeg: row.raDeg, decDeg: row.decDeg, catalogueEpochJulianYear: row.epochJyear,
       pmRaMasYr: row.pmRaCosDecMasYr ?? 0, pmDecMasYr: row.pmDecMasYr ?? 0, parallaxMas: row.parallaxMas ?? 0,
-      parallaxErrorMas: row.parallaxSigmaMas ?? 0, radialVelocityKmS: row.radialVelocityKmS ?? 0, magnitude: row.magnitude,
+      parallaxErrorMas: row.parallaxSigmaMas ?? 0, ...statedErrors(row), radialVelocityKmS: row.radialVelocityKmS ?? 0, magnitude: row.magnitude,
       source: row.source, programmes: row.programmes,
       visibility: 'visible', createdUtc: audit.createdUtc, updatedUtc: audit.createdUtc,
     };

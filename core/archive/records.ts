@@ -132,6 +132,13 @@ export interface StarRecord extends Importable, Audited {
   readonly parallaxMas: number;
   /** Standard uncertainty of the parallax, mas. */
   readonly parallaxErrorMas: number;
+  /**
+   * Stated standard uncertainty of the catalogue position at its epoch, per coordinate on the sky
+   * (mas), and of each proper-motion component (mas/yr): the joint solve's catalogue priors.
+   * Absent when unknown (never 0 or NaN); stars stored before these fields existed have neither.
+   */
+  readonly positionErrorMas?: number;
+  readonly pmErrorMasYr?: number;
   /** Radial velocity, km/s, positive receding; 0 when unknown. */
   readonly radialVelocityKmS: number;
   /** Visual or band magnitude; NaN is not allowed, use `null` when unknown. */

@@ -52,6 +52,8 @@ export const STAR_COLUMNS: readonly ExportColumn<StarRecord>[] = [
   double('pmDecMasYr', 'mas/yr', 'proper motion in declination', (s) => nanIsUnknown(s.pmDecMasYr), 'pos.pm;pos.eq.dec'),
   double('parallaxMas', 'mas', 'annual parallax', (s) => nanIsUnknown(s.parallaxMas), 'pos.parallax'),
   double('parallaxSigmaMas', 'mas', 'standard uncertainty of the parallax; empty if unknown', (s) => (s.parallaxErrorMas === 0 ? null : nanIsUnknown(s.parallaxErrorMas)), 'stat.error;pos.parallax'),
+  double('positionSigmaMas', 'mas', 'stated uncertainty of the position at epochJyear, per coordinate on the sky; empty if unknown', (s) => s.positionErrorMas ?? null, 'stat.error;pos.eq'),
+  double('pmSigmaMasYr', 'mas/yr', 'stated uncertainty of each proper-motion component; empty if unknown', (s) => s.pmErrorMasYr ?? null, 'stat.error;pos.pm'),
   double('radialVelocityKmS', 'km/s', 'radial velocity, receding positive; empty if unknown', (s) => (s.radialVelocityKmS === 0 ? null : s.radialVelocityKmS), 'spect.dopplerVeloc'),
   double('magnitude', 'mag', 'magnitude; empty if unknown', (s) => s.magnitude, 'phot.mag'),
   text('source', 'where the place came from', (s) => s.source),

@@ -18,6 +18,13 @@ export interface StarListRow {
   readonly pmDecMasYr: number | null;
   readonly parallaxMas: number | null;
   readonly parallaxSigmaMas: number | null;
+  /**
+   * Stated 1σ of the catalogue position at its epoch, per coordinate on the sky (mas), and of each
+   * proper-motion component (mas/yr); the joint solve's catalogue priors (SOLVE.md). Absent or
+   * null: unknown (rows built before the columns existed have neither).
+   */
+  readonly positionSigmaMas?: number | null;
+  readonly pmSigmaMasYr?: number | null;
   readonly radialVelocityKmS: number | null;
   readonly magnitude: number | null;
   readonly source: string;
@@ -31,9 +38,12 @@ const OPTIONAL_NUMBERS = [
   ['pmDecMasYr', 'mas/yr', -20_000, 20_000],
   ['parallaxMas', 'mas', -100, 1_000],
   ['parallaxSigmaMas', 'mas', 0, 1_000],
+  ['positionSigmaMas', 'mas', 0, 100_000],
+  ['pmSigmaMasYr', 'mas/yr', 0, 10_000],
   ['radialVelocityKmS', 'km/s', -1_000, 1_000],
   ['magnitude', 'mag', -2, 25],
 ] as const;
+const PRIOR_SIGMA_COLUMNS = new Set<string>(['positionSigmaMas', 'pmSigmaMasYr']);
 const KNOWN = new Set<string>([...REQUIRED, ...OPTIONAL_NUMBERS.map((o) => o[0]), 'label', 'source', 'programme']);
 
 type Problems = { column: string; reason: string }[];
@@ -62,13 +72,15 @@ function parseStar(row: TableRow, problems: Problems): StarListRow | null {
       if (!r.ok) problems.push({ column: name, reason: r.reason });
     }
   }
-  if (optional.parallaxSigmaMas === 0) problems.push({ column: 'parallaxSigmaMas', reason: 'a standard error of 0 mas is impossible; leave it empty if unknown' });
+  for (const column of ['parallaxSigmaMas', 'positionSigmaMas', 'pmSigmaMasYr']) {
+    if (optional[column] === 0) problems.push({ column, reason: 'a standard error of 0 is impossible; leave it empty if unknown' });
+  }
   if (problems.length > 0 || raDeg === null || decDeg === null || epochJyear === null) return null;
   const programmes = get('programme').split(';').map((p) => p.trim()).filter((p) => p !== '');
   return {
     row: row.row, line: row.line, id, label: get('label').trim(), raDeg, decDeg, epochJyear,
     pmRaCosDecMasYr: optional.pmRaCosDecMasYr, pmDecMasYr: optional.pmDecMasYr, parallaxMas: optional.parallaxMas,
-    parallaxSigmaMas: optional.parallaxSigmaMas, radialVelocityKmS: optional.radialVelocityKmS, magnitude: optional.magnitude,
+    parallaxSigmaMas: optional.parallaxSigmaMas, positionSigmaMas: optional.positionSigmaMas, pmSigmaMasYr: optional.pmSigmaMasYr, radialVelocityKmS: optional.radialVelocityKmS, magnitude: optional.magnitude,
     source: get('source').trim(), programmes,
   };
 }
@@ -76,9 +88,10 @@ function parseStar(row: TableRow, problems: Problems): StarListRow | null {
 /**
  * Parses a star list CSV (layout in FORMATS.md): required id, raDeg [0, 360), decDeg [−90, 90],
  * epochJyear; optional proper motions (μα·cos δ and μδ, mas/yr), parallax and its sigma (mas),
- * radial velocity (km/s), magnitude, source and programme. Ranges are the physically possible
+ * the stated σ of the position (mas) and of the proper motion (mas/yr), radial velocity (km/s), magnitude, source and programme. Ranges are the physically possible
  * ones (the largest known proper motion is 10.4″/yr, Barnard's star, so |μ| ≤ 20″/yr). Duplicate ids
- * are rejected (the later row). Missing optional columns are named in a warning; unknown columns too.
+ * are rejected (the later row). Missing optional columns are named in a warning (except the two
+ * stated σ), unknown columns too.
  */
 export function parseStarList(bytes: Uint8Array, fileName: string): ParseResult<StarListRow> {
   const table = readCsvTable(bytes, fileName);
@@ -86,7 +99,8 @@ export function parseStarList(bytes: Uint8Array, fileName: string): ParseResult<
   if (unusable !== null) return unusable;
   const rejected: Rejection[] = [...table.rejected];
   const warnings: string[] = [];
-  const absent = OPTIONAL_NUMBERS.map((o) => o[0]).filter((name) => !table.header.includes(name));
+  // The stated position and proper-motion σ are extras for the joint solve's priors: most lists lack them, so their absence is not worth a warning.
+  const absent = OPTIONAL_NUMBERS.map((o) => o[0]).filter((name) => !table.header.includes(name) && !PRIOR_SIGMA_COLUMNS.has(name));
   if (absent.length > 0) warnings.push(`${fileName}: column(s) ${absent.join(', ')} absent: those values are unknown (null), not zero`);
   const unknown = table.header.filter((name) => !KNOWN.has(name));
   if (unknown.length > 0) warnings.push(`${fileName}: unknown column(s) ignored: ${unknown.join(', ')}`);

@@ -87,6 +87,21 @@ function localLayout(model: JointModel) {
   return { clockOffset, clockRate, azimuth, level, collimation, raLocalCount: n, zeroPoint: nightly('zeroPoint') ? 0 : -1 };
 }
 
+/**
+ * A star's catalogue σ, each component on its own: the model's entry for the star, else the star
+ * list's stated σ (when `starListSigma`), else the model's default; null for no prior.
+ */
+export function catalogueSigmaOf(model: JointModel, star: StarListRow): { positionMas: number | null; pmMasYr: number | null } {
+  const own = model.catalogueSigma.stars[star.id], fallback = model.catalogueSigma.default;
+  // `!== false`: a model saved before the key existed reads the list, which then had no such columns.
+  const list = model.starListSigma !== false;
+  const listPosition = list ? star.positionSigmaMas : undefined, listPm = list ? star.pmSigmaMasYr : undefined;
+  return {
+    positionMas: own?.positionMas ?? listPosition ?? fallback?.positionMas ?? null,
+    pmMasYr: own?.pmMasYr ?? listPm ?? fallback?.pmMasYr ?? null,
+  };
+}
+
 /** Pseudo-observations: clock and level priors per night, catalogue priors per star. */
 function priorsOf(model: JointModel, stars: readonly StarListRow[], nights: readonly JointNight[], g: ReturnType<typeof globalLayout>, l: ReturnType<typeof localLayout>): ParameterPrior[] {
   const priors: ParameterPrior[] = [];
@@ -98,11 +113,9 @@ function priorsOf(model: JointModel, stars: readonly StarListRow[], nights: read
     local(l.level, n.levelPriorSigmaArcsec === null ? null : n.levelPriorSigmaArcsec * 1000);
   });
   stars.forEach((s, i) => {
-    const sigma = model.catalogueSigma.stars[s.id] ?? model.catalogueSigma.default;
-    if (sigma) {
-      global(g.star[i].ra, sigma.positionMas); global(g.star[i].dec, sigma.positionMas);
-      global(g.star[i].pmRa, sigma.pmMasYr); global(g.star[i].pmDec, sigma.pmMasYr);
-    }
+    const { positionMas, pmMasYr } = catalogueSigmaOf(model, s);
+    if (positionMas !== null) { global(g.star[i].ra, positionMas); global(g.star[i].dec, positionMas); }
+    if (pmMasYr !== null) { global(g.star[i].pmRa, pmMasYr); global(g.star[i].pmDec, pmMasYr); }
     if (model.parallaxPrior && s.parallaxSigmaMas !== null) global(g.star[i].parallax, s.parallaxSigmaMas);
   });
   return priors;

@@ -38,6 +38,12 @@ export interface JointModel {
    * are then applied instead and the report says so.
    */
   readonly catalogueSigma: { readonly default: CatalogueSigma | null; readonly stars: Readonly<Record<string, CatalogueSigma>> };
+  /**
+   * Take a star's catalogue σ from the star list where it states them (`positionSigmaMas`,
+   * `pmSigmaMasYr`, each on its own): after an entry in `catalogueSigma.stars`, before
+   * `catalogueSigma.default`. Default true; false ignores the list's columns.
+   */
+  readonly starListSigma: boolean;
   /** Global: Δκ (arcsec), refraction scale (fraction of the model's refraction), flexure f (arcsec). */
   readonly deltaKappa: TermSetting;
   readonly refractionScale: TermSetting;
@@ -81,7 +87,7 @@ export interface JointModel {
 
 export const DEFAULT_JOINT_MODEL: JointModel = {
   starPosition: 'free', properMotion: 'free', parallax: 'free', parallaxPrior: false,
-  catalogueSigma: { default: null, stars: {} },
+  catalogueSigma: { default: null, stars: {} }, starListSigma: true,
   deltaKappa: 'free', refractionScale: 'absent', flexure: 'free', flexureAprioriArcsec: 0,
   // Temperature free: an archive with temperatures nearly always has a thermal term of some size (unmodelled, 0.02″/°C puts the
   // demo's parallaxes several σ off); without temperatures it is held at 0 and the report says so (build-joint-problem.ts).
@@ -99,7 +105,7 @@ const TERM_KEYS = ['starPosition', 'properMotion', 'parallax', 'deltaKappa', 're
 const NUMBER_KEYS = { flexureAprioriArcsec: [-10, 10], referenceTemperatureC: [-60, 60], wireSigmaS: [1e-6, 1], readingSigmaArcsec: [1e-6, 10],
   clockComparisonSigmaS: [1e-7, 1], levelSigmaArcsec: [1e-6, 10], robustIterations: [1, 50] } as const;
 
-const OTHER_KEYS = ['parallaxPrior', 'catalogueSigma', 'termSpan', 'latitudeVariationPeriodsDays', 'varianceComponents'];
+const OTHER_KEYS = ['parallaxPrior', 'starListSigma', 'catalogueSigma', 'termSpan', 'latitudeVariationPeriodsDays', 'varianceComponents'];
 
 function termSpanOf(value: unknown, base: JointModel['termSpan'], problems: string[]): JointModel['termSpan'] {
   const out: Record<string, TermSpan> = { ...base };
@@ -142,7 +148,7 @@ export function parseJointModel(text: string, base: JointModel = DEFAULT_JOINT_M
       const [low, high] = NUMBER_KEYS[key as keyof typeof NUMBER_KEYS];
       if (typeof value === 'number' && value >= low && value <= high) out[key] = value;
       else problems.push(`model key "${key}" must be a number in ${low}…${high} (got ${JSON.stringify(value)})`);
-    } else if (key === 'parallaxPrior' || key === 'varianceComponents') {
+    } else if (key === 'parallaxPrior' || key === 'varianceComponents' || key === 'starListSigma') {
       if (typeof value === 'boolean') out[key] = value; else problems.push(`model key "${key}" must be true or false (got ${JSON.stringify(value)})`);
     } else if (key === 'termSpan') {
       out[key] = termSpanOf(value, base.termSpan, problems);

@@ -1,4 +1,5 @@
 import type { StarRecord } from '../../core/archive/records.ts';
+import { statedErrors } from '../../core/archive-folder/star-file.ts';
 import { parseStarList, type StarListRow } from '../../core/formats/star-list.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { countRejectedRows, countsOf, type ImportPlan } from './importReport.ts';
@@ -14,7 +15,7 @@ export function starRecordFromRow(row: StarListRow, id: string, createdUtc: stri
   return {
     id, catalogueId: row.id, label: row.label === '' ? row.id : row.label, raDeg: row.raDeg, decDeg: row.decDeg,
     catalogueEpochJulianYear: row.epochJyear, pmRaMasYr: unknownIsNaN(row.pmRaCosDecMasYr), pmDecMasYr: unknownIsNaN(row.pmDecMasYr),
-    parallaxMas: unknownIsNaN(row.parallaxMas), parallaxErrorMas: unknownIsNaN(row.parallaxSigmaMas),
+    parallaxMas: unknownIsNaN(row.parallaxMas), parallaxErrorMas: unknownIsNaN(row.parallaxSigmaMas), ...statedErrors(row),
     radialVelocityKmS: row.radialVelocityKmS ?? 0, magnitude: row.magnitude, source: row.source, programmes: row.programmes,
     visibility: 'visible', createdUtc, updatedUtc: nowUtc,
   };

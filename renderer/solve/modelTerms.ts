@@ -86,7 +86,7 @@ function catalogueProblems(model: JointModel): string[] {
 
 /** The terms that differ between two models, as "Parallax: free → absent" lines. */
 export function modelDifferences(a: JointModel, b: JointModel): string[] {
-  const labels = new Map<string, string>([['catalogueSigma', 'Catalogue precision'], ['parallaxPrior', 'Catalogue parallax as a prior'],
+  const labels = new Map<string, string>([['catalogueSigma', 'Catalogue precision'], ['parallaxPrior', 'Catalogue parallax as a prior'], ['starListSigma', 'Stated σ from the star list'],
     ['varianceComponents', 'Weights from the residuals (variance components)'], ['latitudeVariationPeriodsDays', 'Latitude-variation periods (days)'], ['termSpan', 'Segments'], ...TERM_GROUPS.flatMap((g) => g.terms.map((t) => [t.key, t.label] as const)), ...NUMBER_FIELDS.map((f) => [f.key, f.label] as const)]);
   return [...labels].filter(([key]) => JSON.stringify(a[key as keyof JointModel]) !== JSON.stringify(b[key as keyof JointModel]))
     .map(([key, label]) => `${label}: ${describeValue(a[key as keyof JointModel])} → ${describeValue(b[key as keyof JointModel])}`);

@@ -44,6 +44,17 @@ describe('writeArchiveFolder / readArchiveFolder', () => {
     expect(JSON.stringify(read.truth)).toBe(JSON.stringify(archive.truth));
   });
 
+  it('keeps a star\'s stated position and proper-motion σ through the folder, and leaves them out where unknown', () => {
+    const stars = [{ ...archive.stars[0], positionErrorMas: 0.05, pmErrorMasYr: 0.07 }, ...archive.stars.slice(1)];
+    const read = readArchiveFolder(encodeFolderFiles(writeArchiveFolder({ ...archive, stars }, archive.truth)), STAMP);
+    expect(read.rejected).toEqual([]);
+    expect(byId(read.content!.stars)).toEqual(byId(stars));
+    const first = read.content!.stars.find((s) => s.id === archive.stars[0].id)!;
+    expect([first.positionErrorMas, first.pmErrorMasYr]).toEqual([0.05, 0.07]);
+    const other = read.content!.stars.find((s) => s.id === archive.stars[1].id)!;
+    expect('positionErrorMas' in other || 'pmErrorMasYr' in other).toBe(false);
+  });
+
   it('folder → records → folder gives the same files byte for byte', () => {
     const read = readArchiveFolder(encodeFolderFiles(files), STAMP);
     const again = writeArchiveFolder(read.content!, read.truth);

@@ -43,7 +43,7 @@ const transitHeaders = fc.shuffledSubarray(
 );
 const starCells = fc.constantFrom('S-1', 'S-2', '', '10', '360', '-91', '45.5', '2016.0', '1799', 'abc', '0', '-5', '1e400', 'p1;p2', '"x"', '\r\n');
 const starHeaders = fc.shuffledSubarray(
-  ['id', 'label', 'raDeg', 'decDeg', 'epochJyear', 'pmRaCosDecMasYr', 'pmDecMasYr', 'parallaxMas', 'parallaxSigmaMas', 'radialVelocityKmS', 'magnitude', 'source', 'programme', 'oops'],
+  ['id', 'label', 'raDeg', 'decDeg', 'epochJyear', 'pmRaCosDecMasYr', 'pmDecMasYr', 'parallaxMas', 'parallaxSigmaMas', 'positionSigmaMas', 'pmSigmaMasYr', 'radialVelocityKmS', 'magnitude', 'source', 'programme', 'oops'],
   { minLength: 1 },
 );
 
@@ -53,7 +53,7 @@ const VALID: Record<string, readonly string[]> = {
   wire1ClockS: ['75010.5', '80000'], wireTimesClockS: ['75010;;75020', '1.5'], micrometerTurns: ['12.5', ''], zenithDistanceDeg: ['', '45'],
   pressureHpa: ['1013', ''], flags: ['', 'cloud'], note: ['fine, "dry"', ''], extra: ['x'], nightDate: ['2026-03-14', ''],
   id: ['S-1', 'S-2', 'S-3'], label: ['a star'], raDeg: ['10', '359.9'], decDeg: ['45.5', '-89'], epochJyear: ['2016.0'],
-  pmRaCosDecMasYr: ['-5', ''], pmDecMasYr: ['3'], parallaxMas: ['0.5', ''], parallaxSigmaMas: ['0.1'], radialVelocityKmS: ['-20'],
+  pmRaCosDecMasYr: ['-5', ''], pmDecMasYr: ['3'], parallaxMas: ['0.5', ''], parallaxSigmaMas: ['0.1'], positionSigmaMas: ['12', ''], pmSigmaMasYr: ['0.7'], radialVelocityKmS: ['-20'],
   magnitude: ['5'], source: ['invented'], programme: ['p1;p2'], oops: ['?'],
 };
 

@@ -25,6 +25,19 @@ describe('parseStarList', () => {
   });
 });
 
+describe('parseStarList: the stated position and proper-motion σ (catalogue priors)', () => {
+  it('reads them, leaves an empty cell unknown, refuses 0 and a negative σ, and does not warn when the columns are absent', () => {
+    const text = 'id,raDeg,decDeg,epochJyear,positionSigmaMas,pmSigmaMasYr\nS-1,10,10,2016,0.05,0.07\nS-2,11,10,2016,,0.07\nS-3,12,10,2016,0,0.07\nS-4,13,10,2016,1,-2\n';
+    const r = parseStarList(bytes(text), 's.csv');
+    expect(r.rows.map((s) => [s.id, s.positionSigmaMas, s.pmSigmaMasYr])).toEqual([['S-1', 0.05, 0.07], ['S-2', null, 0.07]]);
+    expect(r.rejected.map((x) => [x.row, x.column])).toEqual([[3, 'positionSigmaMas'], [4, 'pmSigmaMasYr']]);
+    expect(r.rejected[0].reason).toMatch(/standard error of 0 is impossible/);
+    const without = parseStarList(bytes('id,raDeg,decDeg,epochJyear\nS-1,10,10,2016\n'), 's.csv');
+    expect(without.warnings.join(' ')).not.toMatch(/positionSigmaMas|pmSigmaMasYr/);
+    expect(without.rows[0].positionSigmaMas).toBeNull();
+  });
+});
+
 describe('parseSiteDescription', () => {
   const good = {
     formatVersion: 1,
