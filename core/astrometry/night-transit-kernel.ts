@@ -131,13 +131,16 @@ export function localTransitsFromNight(
     const bDotP = bx * px + by * py + bz * pz;
     const qx0 = -(bx - bDotP * px), qy0 = -(by - bDotP * py), qz0 = -(bz - bDotP * pz);
     const pDotE = px * ex + py * ey + pz * ez;
-    const w = deflection / Math.max(1 + pDotE, 1e-6 / Math.max(em * em, 1));
+    // The floor of light-deflection.ts, 1e-6/max(em², 1), with its division turned into a product.
+    const w = deflection / Math.max(1 + pDotE, 1e-6 * Math.min(inverseEm * inverseEm, 1));
     const dx = px + w * (ex - pDotE * px), dy = py + w * (ey - pDotE * py), dz = pz + w * (ez - pDotE * pz);
     const inverseOnePlusG = 0.5 + beta2 * (0.125 + 0.0625 * beta2), inverseG = 1 + beta2 * (0.5 + 0.375 * beta2);
     const uDotBeta = dx * betaX + dy * betaY + dz * betaZ;
     const wa = 1 + uDotBeta * inverseOnePlusG;
     let ax = dx * g + wa * betaX, ay = dy * g + wa * betaY, az = dz * g + wa * betaZ;
-    inverse = 1 / Math.sqrt(ax * ax + ay * ay + az * az);
+    // |a| = 1 + d·β exactly for a unit d (the aberration formula's own denominator), so no square
+    // root; the deflection lengthens d by (w sin ψ)²/2, < 4e-11 at the Sun's limb, < 2e-13 at 1°.
+    inverse = 1 / (1 + uDotBeta);
     ax *= inverse; ay *= inverse; az *= inverse;
     const qDotBeta = (qx0 * betaX + qy0 * betaY + qz0 * betaZ) * inverseOnePlusG;
     let fx = g * qx0 + qDotBeta * betaX, fy = g * qy0 + qDotBeta * betaY, fz = g * qz0 + qDotBeta * betaZ;
