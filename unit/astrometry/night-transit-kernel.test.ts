@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { FRAME_LENGTH } from '../../core/astrometry/instant-frame.ts';
 import type { TwoPartJulianDate } from '../../core/astrometry/instant.ts';
-import { createNightContext } from '../../core/astrometry/night-context.ts';
+import { createNightContext, NC_ANGLE, NC_HELIO } from '../../core/astrometry/night-context.ts';
 import { fillFrameFromNight } from '../../core/astrometry/night-frame.ts';
 import { prepareStars } from '../../core/astrometry/prepared-stars.ts';
 import { reduceNight } from '../../core/astrometry/reduce-night.ts';
@@ -70,6 +70,45 @@ describe('reduceNight (fused kernel) against fillFrameFromNight + reduceStar', (
     }
     expect(compared).toBe(40 * 60);
     console.log(`fused vs per-transit kernel: worst ${(worstPlace / MAS).toExponential(2)} mas, factors ${worstFactor.toExponential(2)} over ${compared} transits`);
+  });
+
+  it('agrees as closely near the Sun and on both sides of the refraction switch at Z = 80°, in the densest air', () => {
+    const frame = new Float64Array(FRAME_LENGTH);
+    const single = new Float64Array(RESULT_STRIDE);
+    const centreTt = { jd1: 2_460_310.5, jd2: 0 };
+    const site = { latitudeRad: 40 * DEG, longitudeRad: -3 * DEG, heightM: 0 };
+    const weather = { pressureHpa: 1050, temperatureC: -30, relativeHumidity: 0, wavelengthUm: 0.4 };
+    const instantFromTt = (tt: TwoPartJulianDate) => ({ tt, ut1: tt, xpRad: 0, ypRad: 0 });
+    const night = createNightContext({ centreTt, site, weather, instantFromTt });
+    // The Sun's direction from Earth: minus Earth's heliocentric position.
+    const [hx, hy, hz] = [0, 1, 2].map((i) => -night.coefficients[NC_HELIO + i]);
+    const sunRa = Math.atan2(hy, hx), sunDec = Math.atan2(hz, Math.hypot(hx, hy));
+    const catalogue: CatalogueStar[] = [];
+    // 0.3°, 1° and 3° from the Sun, then declinations whose upper transit lies at Z = 75° … 85°.
+    for (const offset of [0.3, 1, 3]) catalogue.push({ raRad: sunRa, decRad: sunDec + offset * DEG, pmRaCosDecMasYr: 0, pmDecMasYr: 0, parallaxMas: 0, radialVelocityKmS: 0, epochJulianYear: 2016 });
+    for (let z = 75; z <= 85; z += 0.25) catalogue.push({ raRad: (z * 7) % 6, decRad: (40 - z) * DEG, pmRaCosDecMasYr: 50, pmDecMasYr: -30, parallaxMas: 20, radialVelocityKmS: 10, epochJulianYear: 2016 });
+    const stars = prepareStars(catalogue);
+    const starIndex = Int32Array.from(catalogue, (_, k) => k);
+    // Each star at its upper transit: hour angle 0 when the local sidereal angle equals its RA.
+    const angle = night.coefficients[NC_ANGLE] + site.longitudeRad;
+    const days = Float64Array.from(catalogue, (star) => night.centreDaysSinceJ2000 + Math.atan2(Math.sin(star.raRad - angle), Math.cos(star.raRad - angle)) / (2 * Math.PI * 1.0027379));
+    const out = new Float64Array(catalogue.length * RESULT_STRIDE);
+    reduceNight(night, stars, starIndex, days, out);
+    let worstPlace = 0, worstFactor = 0, above = 0, below = 0;
+    for (let k = 0; k < catalogue.length; k++) {
+      fillFrameFromNight(night, days[k], frame);
+      reduceStar(frame, stars, k, single, 0);
+      const o = k * RESULT_STRIDE;
+      if (k >= 3 && single[2] > 80 * DEG) above++;
+      else if (k >= 3) below++;
+      worstPlace = Math.max(worstPlace, Math.abs(angleDifference(out[o], single[0])), Math.abs(out[o + 1] - single[1]), Math.abs(out[o + 2] - single[2]));
+      for (let p = 3; p < RESULT_STRIDE; p++) worstFactor = Math.max(worstFactor, Math.abs(out[o + p] - single[p]));
+    }
+    expect(above).toBeGreaterThan(10);
+    expect(below).toBeGreaterThan(10);
+    expect(worstPlace / MAS).toBeLessThan(0.001);
+    expect(worstFactor).toBeLessThan(1e-9);
+    console.log(`near the Sun and at Z 75–85°: worst ${(worstPlace / MAS).toExponential(2)} mas, factors ${worstFactor.toExponential(2)}`);
   });
 
   it('refuses a star index outside the packed stars, naming it', () => {
