@@ -5,10 +5,15 @@ import type {
 import type { ArchiveDatabase } from '../store/database.ts';
 import { readNightTallies } from '../store/nightTallies.ts';
 
-/** A night for the overview: its record and how many transits it holds. */
-export interface NightSummary {
-  readonly night: NightRecord;
+/** What the overview needs of a night: its id, local date and instrument, and how many transits it holds. */
+export interface OverviewNight {
+  readonly night: Pick<NightRecord, 'id' | 'localDate' | 'instrumentId'>;
   readonly transitCount: number;
+}
+
+/** A night for the overview: its record and how many transits it holds. */
+export interface NightSummary extends OverviewNight {
+  readonly night: NightRecord;
 }
 
 /**

@@ -27,11 +27,13 @@ export class ArchiveViewState {
   problem = $state<string | null>(null);
   /** Called after an edit was made (the nights' unit-weight errors are then reduced again). */
   onEdited: () => void = () => {};
+  readonly databaseName: string;
   readonly #database: ArchiveDatabase;
   readonly #editor: ArchiveEditor;
 
   constructor(database: ArchiveDatabase) {
     this.#database = database;
+    this.databaseName = database.name;
     this.#editor = new ArchiveEditor(database, () => this.editorName);
   }
 

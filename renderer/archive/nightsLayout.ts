@@ -1,9 +1,9 @@
 import type { InstrumentRecord } from '../../core/archive/records.ts';
-import type { NightSummary } from './archiveQueries.ts';
+import type { OverviewNight } from './archiveQueries.ts';
 
 /** Where one night's mark goes in the years × instrument bands × day-of-year grid. */
 export interface NightMark {
-  readonly summary: NightSummary;
+  readonly summary: OverviewNight;
   readonly year: number;
   /** Day of the year, 0 = 1 January. */
   readonly dayOfYear: number;
@@ -44,7 +44,7 @@ export function stepLimits(maxCount: number): number[] {
  * The bands: every instrument that has a night, in the order of `instruments` (the archive's
  * instruments by label), then instruments known only from nights, by id.
  */
-function bandsOf(nights: readonly NightSummary[], instruments: readonly Pick<InstrumentRecord, 'id' | 'label'>[]): InstrumentBand[] {
+function bandsOf(nights: readonly OverviewNight[], instruments: readonly Pick<InstrumentRecord, 'id' | 'label'>[]): InstrumentBand[] {
   const used = new Set(nights.map((n) => n.night.instrumentId));
   const named = instruments.filter((i) => used.has(i.id)).map((i) => ({ instrumentId: i.id, label: i.label }));
   const known = new Set(named.map((b) => b.instrumentId));
@@ -74,7 +74,7 @@ export function shortLabels(labels: readonly string[]): string[] {
  * each row, so that two instruments' nights of one date never hide each other; years without
  * nights are kept. Marks come out sorted by date, then band.
  */
-export function layoutNights(nights: readonly NightSummary[], instruments: readonly Pick<InstrumentRecord, 'id' | 'label'>[] = []): NightsLayout {
+export function layoutNights(nights: readonly OverviewNight[], instruments: readonly Pick<InstrumentRecord, 'id' | 'label'>[] = []): NightsLayout {
   let maxCount = 0;
   for (const n of nights) maxCount = Math.max(maxCount, n.transitCount);
   const limits = stepLimits(maxCount);
