@@ -97,7 +97,7 @@ export async function recountNightTallies(database: ArchiveDatabase, nightIds: I
   }
 }
 
-/** Throws away every tally and computes them all again from the stored nights and transits. */
+/** Throws away every tally and computes them all again from the stored nights and transits (tests, repairs). */
 export async function rebuildNightTallies(database: ArchiveDatabase): Promise<void> {
   await database.transaction('rw', [database.nights, database.transits, database.nightTallies], async () => {
     const [nights, transits] = await Promise.all([database.nights.toArray(), database.transits.toArray()]);
@@ -106,10 +106,24 @@ export async function rebuildNightTallies(database: ArchiveDatabase): Promise<vo
   });
 }
 
-/** The version 3 upgrade (schemaV3.ts): fills `nightTallies` from the rows version 2 stored. */
+/** Transits read per page by the v3 upgrade: bounded memory and short tasks at a million rows. */
+const UPGRADE_PAGE_ROWS = 2_000;
+
+/**
+ * The version 3 upgrade (schemaV3.ts): fills `nightTallies` from the rows version 2 stored,
+ * paging through the transits in primary-key order rather than reading a million at once.
+ */
 export async function upgradeToV3(transaction: Transaction): Promise<void> {
-  const [nights, transits] = await Promise.all([transaction.table('nights').toArray(), transaction.table('transits').toArray()]);
-  // A v2 transit whose night is missing (never written by this app) would stop the upgrade: skip it.
-  const known = new Set((nights as NightRecord[]).map((n) => n.id));
-  await transaction.table('nightTallies').bulkAdd(talliesFromRows(nights as NightRecord[], (transits as TransitRecord[]).filter((t) => known.has(t.nightId))));
+  const nights = (await transaction.table('nights').toArray()) as NightRecord[];
+  const byId = new Map<string, NightKey>(nights.map((n) => [n.id, n]));
+  const tallies = new Map<string, NightTallyRecord>();
+  const transits = transaction.table('transits');
+  let page = (await transits.limit(UPGRADE_PAGE_ROWS).toArray()) as TransitRecord[];
+  while (page.length > 0) {
+    // A v2 transit whose night is missing (never written by this app) would stop the upgrade: skip it.
+    addTo(tallies, page.filter((t) => byId.has(t.nightId)), byId);
+    if (page.length < UPGRADE_PAGE_ROWS) break;
+    page = (await transits.where(':id').above((page.at(-1) as TransitRecord).id).limit(UPGRADE_PAGE_ROWS).toArray()) as TransitRecord[];
+  }
+  await transaction.table('nightTallies').bulkAdd([...tallies.values()]);
 }

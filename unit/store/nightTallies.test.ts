@@ -160,3 +160,26 @@ describe('every path that writes transits keeps nightTallies true', () => {
     database.close();
   });
 });
+
+describe('the version 3 upgrade at more than one page of transits', () => {
+  test('5,001 transits over three nights (pages of 2,000) are all counted, a transit of a missing night is skipped', async () => {
+    const name = uniqueDatabaseName('tallies-upgrade-pages');
+    const old = new Dexie(name);
+    old.version(2).stores(SCHEMA_V2);
+    await old.table('nights').bulkPut([nightRow('n1'), nightRow('n2', { localDate: '2026-01-02' }), nightRow('n3', { localDate: '2026-01-03' })]);
+    // Transit k goes to night n(1 + k mod 3) at 61000 + k/10000; every seventh is rejected.
+    const rows = Array.from({ length: 5_001 }, (_, k) => transitRow(`t${String(k).padStart(5, '0')}`, { nightId: `n${1 + (k % 3)}`, utcMjd: 61_000 + k / 10_000, userRejected: k % 7 === 0 }));
+    await old.table('transits').bulkPut([...rows, transitRow('orphan', { nightId: 'gone' })]);
+    old.close();
+    const database = new ArchiveDatabase(name);
+    const tallies = await readNightTallies(database);
+    // By hand: k ≡ 0 (mod 3) for k = 0…5000 gives 1,667 transits (first k 0, last 4998); k ≡ 1: 1,667 (1 … 4999); k ≡ 2: 1,667 (2 … 5000).
+    // Rejected: k ≡ 0 (mod 21) within each class; k = 0, 21, …, 4998 gives 239 for n1; k ≡ 7 (mod 21) for n2 (k = 7 … 4999): 238; k ≡ 14 (mod 21) for n3 (14 … 4991): 238.
+    expect(tallies).toStrictEqual([
+      tally('n1', 1_667, 239, 61_000, 61_000 + 4_998 / 10_000),
+      tally('n2', 1_667, 238, 61_000 + 1 / 10_000, 61_000 + 4_999 / 10_000, '2026-01-02'),
+      tally('n3', 1_667, 238, 61_000 + 2 / 10_000, 61_000 + 5_000 / 10_000, '2026-01-03'),
+    ]);
+    database.close();
+  });
+});
