@@ -1,7 +1,7 @@
 import type { ClockComparison, CollimationReading, LevelReading, NightQuality, NightRecord, WeatherReading } from '../archive/records.ts';
 import { parseChoiceCell, parseDateCell, parseNumberCell, type CellResult } from '../formats/cells.ts';
 import { readCsvTable, type TableRow } from '../formats/csv-table.ts';
-import { parseClockComparisons } from '../formats/clock-comparisons.ts';
+import { parseClockComparisons, type ClockComparisonRow } from '../formats/clock-comparisons.ts';
 import { parseUtcCell, type UtcInstant, utcCountS } from '../formats/utc-instant.ts';
 import { csvFile, dateMjd, dateText, type FolderRejection, numberText, secondsText, utcInstantMjd, utcText } from './folder-text.ts';
 
@@ -30,6 +30,11 @@ export function writeNightFiles(nights: readonly NightRecord[]): { nights: strin
 function clockCells(c: ClockComparison, night: NightRecord): string[] {
   const day = dateMjd(night.localDate);
   return [night.localDate, night.instrumentId, utcText(c.utcMjd), secondsText(c.utcMjd + c.clockMinusUtcS / 86_400, day), c.signal];
+}
+
+/** A parsed clock-comparisons row (core/formats/clock-comparisons.ts) as the night record stores it. */
+export function clockComparisonOfRow(row: ClockComparisonRow): ClockComparison {
+  return comparisonFromCells(row.utc, row.clockS, row.nightDateMjd, row.signal);
 }
 
 /** A comparison from the file's cells: clock − UTC = clock seconds − UTC seconds, both from 0 h of the night date. */

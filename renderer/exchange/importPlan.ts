@@ -1,6 +1,7 @@
 import type { ArchiveDatabase } from '../store/database.ts';
 import type { ColumnMapping } from './columnMapping.ts';
 import type { ImportFileKind, ImportPlan } from './importReport.ts';
+import { planClockImport } from './clockImportPlan.ts';
 import { planSiteImport } from './siteImportPlan.ts';
 import { planStarImport } from './starImportPlan.ts';
 import { planTransitImport } from './transitImportPlan.ts';
@@ -15,10 +16,11 @@ export interface ImportFileRequest {
   readonly columnMapping: ColumnMapping;
 }
 
-/** Which reader a file needs, from its name: .json is a site description; a CSV by its header. */
+/** Which reader a file needs, from its name: .json is a site description; a CSV by its header (clock comparisons: nightDate, utc and clockS without a starId). */
 export function guessImportKind(fileName: string, header: readonly string[] | null): ImportFileKind {
   if (/\.json$/i.test(fileName)) return 'site-description';
   if (header !== null && header.includes('raDeg') && header.includes('decDeg')) return 'star-list';
+  if (header !== null && ['nightDate', 'utc', 'clockS'].every((name) => header.includes(name)) && !header.includes('starId')) return 'clock-comparisons';
   return 'transit-log';
 }
 
@@ -26,6 +28,7 @@ export function guessImportKind(fileName: string, header: readonly string[] | nu
 export function planImport(database: ArchiveDatabase, request: ImportFileRequest, nowUtc: string, clock?: StageClock): Promise<ImportPlan> {
   if (request.kind === 'site-description') return planSiteImport(database, request.bytes, request.fileName, nowUtc);
   if (request.kind === 'star-list') return planStarImport(database, request.bytes, request.fileName, nowUtc);
+  if (request.kind === 'clock-comparisons') return planClockImport(database, request.bytes, request.fileName, nowUtc);
   return planTransitImport(database, request.bytes, request.fileName, nowUtc, {
     defaultInstrumentId: request.defaultInstrumentId,
     columnMapping: request.columnMapping,
