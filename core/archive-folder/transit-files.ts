@@ -34,7 +34,7 @@ export function writeTransitFiles(transits: readonly TransitRecord[], nights: re
     if (reading !== '') zenith[column] = column === 2 ? numberText(t.zenithReadings[0] / 3600, where) : reading;
     const w = t.weather;
     const fields = [
-      t.starId, t.culmination, '', night.localDate, t.instrumentId, night.observer,
+      t.starId, t.culmination, t.clamp ?? '', night.localDate, t.instrumentId, night.observer,
       times.map((m) => (Number.isFinite(m) ? secondsText(m, day) : '')).join(';'), ...zenith,
       w === null ? '' : numberText(w.temperatureC, where), w === null ? '' : numberText(w.pressureHpa, where), w === null ? '' : numberText(w.relativeHumidityPercent, where),
       numberText(t.weight, where), t.userRejected ? 'user-rejected' : '', t.note, t.id, secondsText(t.clockMjd, day), t.flaggedOutlier ? 'yes' : '',
@@ -75,7 +75,6 @@ export function readTransitFile(bytes: Uint8Array, file: string, context: Transi
     const instrument = row.instrumentId === null ? undefined : instrumentById.get(row.instrumentId);
     if (instrument === undefined) { reject('instrumentId', `instrument '${row.instrumentId ?? ''}' is not in site.json`); continue; }
     if (night === undefined) { reject('nightDate', `no night of ${row.instrumentId} on ${date ?? '(no date)'} in nights.csv; add the night`); continue; }
-    if (row.clamp === 'east') { reject('clamp', 'the archive records have no clamp position yet; only clamp west (or none) can be kept'); continue; }
     if (row.times.kind !== 'clock') { reject('wireTimesClockS', 'an archive folder gives clock times (wireTimesClockS), not UTC'); continue; }
     const weatherCells = [row.temperatureC, row.pressureHpa, row.humidityPercent];
     if (weatherCells.some((v) => v === null) && weatherCells.some((v) => v !== null)) { reject('temperatureC', 'transit weather needs temperatureC, pressureHpa and humidityPercent together (or none)'); continue; }
@@ -96,7 +95,7 @@ export function readTransitFile(bytes: Uint8Array, file: string, context: Transi
     else if (wires.length === 0) clockMjd = day + row.times.wires[0].clockS / 86_400;
     else {
       const star = starById.get(row.starId)!;
-      const reduced = reduceToMeanWire(row.times.wires.map((w) => ({ wireIndex: w.wireIndex, clockTimeS: w.clockS })), wires, star.decDeg * DEG, row.culmination, 'west', 'mean-solar');
+      const reduced = reduceToMeanWire(row.times.wires.map((w) => ({ wireIndex: w.wireIndex, clockTimeS: w.clockS })), wires, star.decDeg * DEG, row.culmination, row.clamp, 'mean-solar');
       clockMjd = day + reduced.meanWireTimeS / 86_400;
       warnings.push(`${file}: row ${row.row}: no meanWireClockS; reduced the wires to the mean wire at the catalogue declination`);
     }
@@ -105,7 +104,7 @@ export function readTransitFile(bytes: Uint8Array, file: string, context: Transi
     const idText = (extra.get('transitId') ?? '').trim();
     transits.push({
       id: idText !== '' ? idText : `${night.id}/${row.starId}/${row.culmination}`, nightId: night.id, starId: row.starId, instrumentId: instrument.id,
-      culmination: row.culmination, clockMjd, wireClockMjd, utcMjd: approximateUtcMjd(clockMjd, night.clockComparisons), zenithReadings: reading,
+      culmination: row.culmination, ...(row.clamp === 'none' ? {} : { clamp: row.clamp }), clockMjd, wireClockMjd, utcMjd: approximateUtcMjd(clockMjd, night.clockComparisons), zenithReadings: reading,
       weather: row.temperatureC === null ? null : { temperatureC: row.temperatureC, pressureHpa: row.pressureHpa!, relativeHumidityPercent: row.humidityPercent! },
       weight: row.weight, userRejected: row.flags.includes('user-rejected'), flaggedOutlier: (extra.get('outlier') ?? '').trim() === 'yes', note: row.note,
       visibility: 'visible', createdUtc: context.createdUtc, updatedUtc: context.createdUtc,

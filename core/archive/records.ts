@@ -205,6 +205,12 @@ export interface TransitRecord extends Importable, Audited {
   /** Copied from the night so that per-instrument time series need no join. */
   readonly instrumentId: string;
   readonly culmination: Culmination;
+  /**
+   * Clamp (circle) position of a reversible instrument at this transit: it flips the sign of the
+   * collimation and of the wire intervals (core/instrument/culmination.ts, c stated for clamp west).
+   * Absent for an instrument that is not reversed, and for transits stored before it was kept.
+   */
+  readonly clamp?: 'east' | 'west';
   /** Mean-wire (or single-line) crossing time read on the instrument clock, as MJD. */
   readonly clockMjd: number;
   /** Clock times at each wire, as MJD, same order as the instrument's wire intervals; may be empty. */

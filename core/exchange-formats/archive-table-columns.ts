@@ -88,6 +88,7 @@ export const TRANSIT_COLUMNS: readonly ExportColumn<TransitRecord>[] = [
   text('starId', 'archive id of the star', (t) => t.starId),
   text('instrumentId', 'archive id of the instrument', (t) => t.instrumentId),
   text('culmination', 'upper or lower', (t) => t.culmination),
+  text('clamp', 'clamp position of a reversed instrument (east, west); empty if not reversed', (t) => t.clamp ?? ''),
   double('clockMjd', 'd', 'mean-wire crossing read on the instrument clock, MJD', (t) => t.clockMjd),
   text('wireClockMjd', 'clock time at each wire, MJD, ;-separated', (t) => list(t.wireClockMjd)),
   double('utcMjd', 'd', 'approximate UTC of the crossing, MJD (for ordering)', (t) => t.utcMjd, 'time.epoch'),

@@ -59,8 +59,8 @@ export function weatherOf(row: TransitLogRow): WeatherReading | null {
 
 /**
  * The archive record of one accepted row. The record has no field for flags other than
- * user-rejected, so the others (doubtful, cloud, …) and the clamp side are kept in the note in
- * square brackets, where the Archive view shows them and a later schema can read them back.
+ * user-rejected, so the others (doubtful, cloud, …) are kept in the note in square brackets, where
+ * the Archive view shows them and a later schema can read them back. The clamp position is kept.
  */
 export function transitRecordFromRow(
   row: TransitLogRow,
@@ -70,10 +70,9 @@ export function transitRecordFromRow(
   nowUtc: string,
 ): TransitRecord {
   const otherFlags = row.flags.filter((f) => f !== 'user-rejected');
-  const tags = [...(row.clamp === 'none' ? [] : [`clamp ${row.clamp}`]), ...otherFlags];
-  const note = tags.length === 0 ? row.note : `${row.note}${row.note === '' ? '' : ' '}[${tags.join('; ')}]`;
+  const note = otherFlags.length === 0 ? row.note : `${row.note}${row.note === '' ? '' : ' '}[${otherFlags.join('; ')}]`;
   return {
-    ...ids, culmination: row.culmination, clockMjd: times.meanMjd, wireClockMjd: times.wires, utcMjd: times.meanMjd,
+    ...ids, culmination: row.culmination, ...(row.clamp === 'none' ? {} : { clamp: row.clamp }), clockMjd: times.meanMjd, wireClockMjd: times.wires, utcMjd: times.meanMjd,
     zenithReadings, weather: weatherOf(row), weight: row.weight, userRejected: row.flags.includes('user-rejected'),
     flaggedOutlier: false, note, visibility: 'visible', createdUtc: nowUtc, updatedUtc: nowUtc,
   };

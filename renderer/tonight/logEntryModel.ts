@@ -58,8 +58,11 @@ export function judgeEntry(draft: LogDraftFields, context: EntryContext): Judged
   return { row, wires, reading, check };
 }
 
-/** The transit to store for an accepted entry; `clockMinusUtcS` null means the clock is taken as UTC. */
-export function transitDraftOf(row: ProgrammeRow, wires: WireEntry, reading: number | null, check: EntryCheck, clockMinusUtcS: number | null): TransitDraft {
+/**
+ * The transit to store for an accepted entry; `clockMinusUtcS` null means the clock is taken as
+ * UTC. `clamp` is the night's clamp setting ('none' for an instrument that is not reversed: not stored).
+ */
+export function transitDraftOf(row: ProgrammeRow, wires: WireEntry, reading: number | null, check: EntryCheck, clockMinusUtcS: number | null, clamp: ClampPosition): TransitDraft {
   const complete = !wires.single && wires.wireClockMjd.every((t) => t !== null);
   const missed = wires.wireClockMjd.flatMap((t, k) => (t === null ? [k + 1] : []));
   const notes = [
@@ -69,7 +72,7 @@ export function transitDraftOf(row: ProgrammeRow, wires: WireEntry, reading: num
     check.hints.length > 0 ? `flagged at entry: ${check.hints[0]}` : '',
   ].filter((text) => text !== '');
   return {
-    starId: row.star.id, culmination: row.transit.culmination, clockMjd: check.meanClockMjd,
+    starId: row.star.id, culmination: row.transit.culmination, ...(clamp === 'none' ? {} : { clamp }), clockMjd: check.meanClockMjd,
     wireClockMjd: complete ? (wires.wireClockMjd as number[]) : [],
     utcMjd: check.meanClockMjd - (clockMinusUtcS ?? 0) / SECONDS_PER_DAY,
     zenithReadings: reading === null ? [] : [reading], note: notes.join('; '),

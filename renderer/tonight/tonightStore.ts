@@ -31,7 +31,7 @@ export async function ensureNight(database: ArchiveDatabase, siteId: string, ins
 }
 
 /** What the log entry hands over for one accepted transit. */
-export type TransitDraft = Pick<TransitRecord, 'starId' | 'culmination' | 'clockMjd' | 'wireClockMjd' | 'utcMjd' | 'zenithReadings' | 'note'>;
+export type TransitDraft = Pick<TransitRecord, 'starId' | 'culmination' | 'clamp' | 'clockMjd' | 'wireClockMjd' | 'utcMjd' | 'zenithReadings' | 'note'>;
 
 /** Writes one accepted transit at once (creating the night on the first entry). */
 export async function addTransit(database: ArchiveDatabase, night: NightRecord, draft: TransitDraft): Promise<TransitRecord> {

@@ -55,6 +55,17 @@ describe('writeArchiveFolder / readArchiveFolder', () => {
     expect('positionErrorMas' in other || 'pmErrorMasYr' in other).toBe(false);
   });
 
+  it('keeps the clamp position of each transit through the folder (east, west, or none for an instrument not reversed)', () => {
+    const [first, second, ...rest] = archive.transits;
+    const transits = [{ ...first, clamp: 'east' as const }, { ...second, clamp: 'west' as const }, ...rest];
+    const read = readArchiveFolder(encodeFolderFiles(writeArchiveFolder({ ...archive, transits }, archive.truth)), STAMP);
+    expect(read.rejected).toEqual([]);
+    const back = new Map(read.content!.transits.map((t) => [t.id, t]));
+    expect(back.get(first.id)!.clamp).toBe('east');
+    expect(back.get(second.id)!.clamp).toBe('west');
+    expect('clamp' in back.get(rest[0].id)!).toBe(false);
+  });
+
   it('folder → records → folder gives the same files byte for byte', () => {
     const read = readArchiveFolder(encodeFolderFiles(files), STAMP);
     const again = writeArchiveFolder(read.content!, read.truth);

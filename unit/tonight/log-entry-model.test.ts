@@ -54,7 +54,8 @@ describe('judgeEntry and transitDraftOf', () => {
     expect(Math.abs(judged.check!.timeOmcS)).toBeLessThan(0.05); // typed to 0.1 s
     expect(judged.check!.zenithOmcArcsec).toBeCloseTo(0, 6); // 1200 turns × 30″ = 10° = predicted z
     const wires = judged.wires!.ok ? judged.wires!.value : null;
-    const draft = transitDraftOf(target, wires!, 1200, judged.check!, 2);
+    const draft = transitDraftOf(target, wires!, 1200, judged.check!, 2, 'west');
+    expect(draft.clamp).toBe('west');
     expect(draft.wireClockMjd).toHaveLength(3);
     expect((draft.clockMjd - draft.utcMjd) * SECONDS_PER_DAY).toBeCloseTo(2, 6);
     expect(draft.zenithReadings).toEqual([1200]);
@@ -64,7 +65,8 @@ describe('judgeEntry and transitDraftOf', () => {
   it('a missed wire keeps only the mean (the stored wire list must match the instrument\'s order) and says so in the note', () => {
     const judged = judgeEntry({ starCatalogueId: 'ML-02', wiresText: `${typed[0]} - ${typed[2]}`, readingText: '' }, CONTEXT);
     const wires = judged.wires!.ok ? judged.wires!.value : null;
-    const draft = transitDraftOf(target, wires!, null, judged.check!, null);
+    const draft = transitDraftOf(target, wires!, null, judged.check!, null, 'none');
+    expect('clamp' in draft).toBe(false); // an instrument that is not reversed stores no clamp
     expect(draft.wireClockMjd).toEqual([]);
     expect(draft.zenithReadings).toEqual([]);
     expect(draft.note).toMatch(/wires missed: 2/);
