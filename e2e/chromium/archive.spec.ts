@@ -284,7 +284,9 @@ test('a 10,000-night archive: overview render and key-stage figures', async ({ p
     const sum = ((document.querySelector('figure.overview canvas')?.getAttribute('data-painted') ?? '').match(/:\d+/g) ?? [])
       .reduce((total, part) => total + Number(part.slice(1)), 0);
     const all = Number(document.querySelector('figure.overview')?.getAttribute('data-night-count'));
-    return (wanted === 'one' ? sum > 0 : sum >= all) && performance.now();
+    // 'all': the archive's own overview (not the copy of the last launch shown while it opens) wholly painted.
+    const own = document.querySelector('[data-testid="overview-copy-note"]') === null;
+    return (wanted === 'one' ? sum > 0 : own && sum >= all) && performance.now();
   }, atLeast, { timeout: 120_000, polling: 10 });
   const headingMs = Number(await (await painted(page, 'one')).jsonValue());
   await painted(page, 'all');
@@ -316,7 +318,7 @@ test('a 10,000-night archive: overview render and key-stage figures', async ({ p
     return { transits: all.length, nights: ids.length, bodiesMs, countsMs };
   });
   const load = await page.evaluate(() => navigator.hardwareConcurrency);
-  console.log(`big archive: ${total} nights; first mark seen ${headingMs.toFixed(0)} ms, all marks painted ${paintMs.toFixed(0)} ms after navigation start; long tasks (ms long @ ms after start) ${longTasks.flatMap((t, i) => (i % 2 === 0 ? [`${t.toFixed(0)} @ ${longTasks[i + 1].toFixed(0)}`] : [])).join(', ')}; re-colour ${recolourMs.toFixed(0)} ms; ` +
+  console.log(`big archive: ${total} nights; first mark seen ${headingMs.toFixed(0)} ms (the last launch's copy or the archive's), all the archive's marks painted ${paintMs.toFixed(0)} ms after navigation start; long tasks (ms long @ ms after start) ${longTasks.flatMap((t, i) => (i % 2 === 0 ? [`${t.toFixed(0)} @ ${longTasks[i + 1].toFixed(0)}`] : [])).join(', ')}; re-colour ${recolourMs.toFixed(0)} ms; ` +
     `key-stage reads: all ${reads.transits} transit bodies ${reads.bodiesMs.toFixed(0)} ms vs ${reads.nights} index counts ${reads.countsMs.toFixed(0)} ms; ${load} cores`);
   expect(reads.transits).toBeGreaterThan(90_000);
   expect(longTasks.length).toBeGreaterThan(0);

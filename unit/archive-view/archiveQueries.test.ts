@@ -63,3 +63,20 @@ describe('archive queries', () => {
     expect(instruments.map((i) => i.events.map((e) => e.id))).toEqual([['e-1', 'e-2']]);
   });
 });
+
+describe('loadNightSummaries over pages', () => {
+  test('4,500 nights (three pages of 2,000) come back once each, in date order, with their counts', async () => {
+    const database = new ArchiveDatabase(uniqueDatabaseName('queries-pages'));
+    // Ids in the reverse order of the dates, so that key order and date order differ.
+    const nights = Array.from({ length: 4500 }, (_, i) => nightRow(`n-${String(4500 - i).padStart(5, '0')}`, { localDate: new Date(Date.UTC(2000, 0, 1 + i)).toISOString().slice(0, 10) }));
+    await database.nights.bulkAdd(nights);
+    await database.transits.bulkAdd([transitRow('t-1', { nightId: 'n-00007' }), transitRow('t-2', { nightId: 'n-00007' })]);
+    await rebuildNightTallies(database);
+    const summaries = await loadNightSummaries(database);
+    expect(summaries).toHaveLength(4500);
+    expect(new Set(summaries.map((s) => s.night.id)).size).toBe(4500);
+    const dates = summaries.map((s) => s.night.localDate);
+    expect(dates).toEqual([...dates].sort());
+    expect(summaries.filter((s) => s.transitCount > 0).map((s) => [s.night.id, s.transitCount])).toEqual([['n-00007', 2]]);
+  });
+});
