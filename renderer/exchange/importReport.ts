@@ -2,7 +2,7 @@ import type { Rejection } from '../../core/formats/parse-result.ts';
 import type { ImportWrites } from './stagedWriter.ts';
 
 /** The kinds of file the Exchange view imports. */
-export type ImportFileKind = 'site-description' | 'star-list' | 'transit-log' | 'clock-comparisons';
+export type ImportFileKind = 'site-description' | 'star-list' | 'transit-log' | 'clock-comparisons' | 'night-readings';
 
 /**
  * What the validation pass found in one file, before anything is written. Invariant (tested):

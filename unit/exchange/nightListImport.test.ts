@@ -1,4 +1,4 @@
-// Importing clock comparisons in the Exchange view (core/reduction/NIGHT.md's CSV): each comparison
+// Importing clock comparisons and level/collimation readings in the Exchange view (core/reduction/NIGHT.md's CSVs): each reading
 // joins its archived night (a row without an instrument is every instrument's clock); rows whose
 // night is not archived are refused by row and column; a second import of the same file doubles
 // nothing. Invented scenario (exchangeFixtures.ts): only structure and arithmetic matter.
@@ -72,6 +72,26 @@ describe('clock comparisons through the Exchange import', () => {
     const report = await importWhole(database, request('clock-comparisons', file, 'clock.csv'));
     expect(report).toMatchObject({ validRows: 1, rejectedRowCount: 0, updatedCounts: { nights: 2 } });
     for (const night of await database.nights.toArray()) expect(night.clockComparisons.map((c) => c.clockMinusUtcS)).toEqual([0.25]);
+    database.close();
+  });
+
+  test('level and collimation readings join their nights the same way, kept in time order, and are not doubled', async () => {
+    const database = await archiveWithOneNight();
+    const file = encodeUtf8(['nightDate,instrumentId,utc,levelArcsec,collimationArcsec',
+      '2026-03-01,qt-2,2026-03-01T23:00:00Z,1.2,',
+      '2026-03-01,qt-2,2026-03-01T20:00:00Z,0.8,0.35',
+      '2026-03-05,qt-2,2026-03-05T20:00:00Z,0.8,',
+    ].join('\n'));
+    expect(guessImportKind('readings.csv', ['nightDate', 'instrumentId', 'utc', 'levelArcsec', 'collimationArcsec'])).toBe('night-readings');
+    const report = await importWhole(database, request('night-readings', file, 'readings.csv'));
+    expect(report).toMatchObject({ totalRows: 3, validRows: 2, rejectedRowCount: 1, updatedCounts: { nights: 1 } });
+    const night = (await database.nights.toArray())[0];
+    // Kept in time order whatever the file's order.
+    expect(night.levelReadings.map((r) => r.levelArcsec)).toEqual([0.8, 1.2]);
+    expect(night.collimationReadings).toEqual([{ utcMjd: expect.closeTo(61100 + 20 / 24, 9), collimationArcsec: 0.35 }]);
+    const again = await importWhole(database, request('night-readings', file, 'readings.csv'));
+    expect(again).toMatchObject({ validRows: 0, duplicateCount: 2 });
+    expect((await database.nights.toArray())[0].levelReadings).toHaveLength(2);
     database.close();
   });
 });

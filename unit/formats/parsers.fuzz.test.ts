@@ -4,6 +4,7 @@ import { readCsv } from '../../core/formats/csv.ts';
 import { parseTransitLog } from '../../core/formats/transit-log.ts';
 import { parseStarList } from '../../core/formats/star-list.ts';
 import { parseSiteDescription } from '../../core/formats/site-description.ts';
+import { parseNightReadings } from '../../core/formats/night-readings.ts';
 import type { ParseResult } from '../../core/formats/parse-result.ts';
 
 const RUNS = 1500;
@@ -47,6 +48,8 @@ const starHeaders = fc.shuffledSubarray(
   { minLength: 1 },
 );
 
+const readingHeaders = fc.shuffledSubarray(['nightDate', 'utc', 'instrumentId', 'levelArcsec', 'collimationArcsec', 'oops'], { minLength: 1 });
+
 /** Plausible values per column, so the accepting paths are reached as well as the rejecting ones. */
 const VALID: Record<string, readonly string[]> = {
   starId: ['K-1'], culmination: ['upper', 'lower'], clamp: ['east', 'west', ''], wire1Utc: [''], wire2Utc: [''],
@@ -55,6 +58,7 @@ const VALID: Record<string, readonly string[]> = {
   id: ['S-1', 'S-2', 'S-3'], label: ['a star'], raDeg: ['10', '359.9'], decDeg: ['45.5', '-89'], epochJyear: ['2016.0'],
   pmRaCosDecMasYr: ['-5', ''], pmDecMasYr: ['3'], parallaxMas: ['0.5', ''], parallaxSigmaMas: ['0.1'], positionSigmaMas: ['12', ''], pmSigmaMasYr: ['0.7'], radialVelocityKmS: ['-20'],
   magnitude: ['5'], source: ['invented'], programme: ['p1;p2'], oops: ['?'],
+  utc: ['2026-03-14T21:00:00Z', '2026-03-15T03:30:00.5Z'], instrumentId: ['mt-1', ''], levelArcsec: ['1.25', '-0.8', ''], collimationArcsec: ['0.4', ''],
 };
 
 function tableArbitrary(headers: fc.Arbitrary<string[]>, cells: fc.Arbitrary<string>): fc.Arbitrary<string> {
@@ -106,6 +110,21 @@ describe('fuzzing the readers (fast-check): no uncaught exception, accepted + re
     fc.assert(
       fc.property(tableArbitrary(starHeaders, starCells), (text) => {
         const result = parseStarList(encoder.encode(text), 'fuzz.csv');
+        accepted += result.rows.length;
+        checkInvariants(result);
+      }),
+      { numRuns: RUNS, seed },
+    );
+    expect(accepted).toBeGreaterThan(0);
+  });
+
+  it(`parseNightReadings on random bytes and on structured tables (${RUNS} + ${RUNS} cases)`, () => {
+    const seed = seedFor('parseNightReadings');
+    fc.assert(fc.property(fc.uint8Array({ maxLength: 300 }), (b) => checkInvariants(parseNightReadings(b, 'fuzz.csv'))), { numRuns: RUNS, seed });
+    let accepted = 0;
+    fc.assert(
+      fc.property(tableArbitrary(readingHeaders, transitCells), (text) => {
+        const result = parseNightReadings(encoder.encode(text), 'fuzz.csv');
         accepted += result.rows.length;
         checkInvariants(result);
       }),
