@@ -106,7 +106,9 @@ export class TimeScale {
     const { mjdDay, dayFraction } = splitMjdDay(utc);
     const taiMinusUtc = this.leapSeconds.valueOnDay(mjdDay, dayFraction);
     const ut1 = { jd1: tai.jd1, jd2: tai.jd2 + (dut1Seconds - taiMinusUtc) / SECONDS_PER_DAY };
-    return { utc, tai, tt, tdb: ttToTdb(tt), ut1, dut1Seconds, xpRad, ypRad, warnings };
+    // TDB on first reading: the per-night contexts of a batch ask for instants but never for TDB.
+    let tdb: JulianDate | undefined;
+    return { utc, tai, tt, get tdb() { return (tdb ??= ttToTdb(tt)); }, ut1, dut1Seconds, xpRad, ypRad, warnings };
   }
 
   /** Before 1960: the time is UT1; TT from the ΔT model unless given (see the file header). */
