@@ -182,7 +182,8 @@ function between(p: AstrometricInstant, q: AstrometricInstant, centre: TwoPartJu
  * error is ~2 µas (a quadratic would leave 0.2 mas).
  */
 function quartic(out: Float64Array, offset: number, y: readonly number[]): void {
-  const [m1, mh, zero, ph, p1] = y;
+  // Indexed rather than destructured: destructuring runs the array iterator, an allocation a call.
+  const m1 = y[0], mh = y[1], zero = y[2], ph = y[3], p1 = y[4];
   const evenHalf = (ph + mh) / 2 - zero, evenOne = (p1 + m1) / 2 - zero;
   const oddHalf = (ph - mh) / 2, oddOne = (p1 - m1) / 2;
   const c2 = (16 * evenHalf - evenOne) / 3;
