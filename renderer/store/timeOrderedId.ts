@@ -16,10 +16,10 @@ export class TimeOrderedIds {
   /** 42-bit counter, restarted at a random value below 2^41 each new millisecond (room to count up). */
   #counter = 0;
   readonly #now: () => number;
-  readonly #random: (bytes: Uint8Array) => void;
+  readonly #random: (bytes: Uint8Array<ArrayBuffer>) => void;
 
   /** `now` in Unix milliseconds and `random` filling bytes, both injectable for tests. */
-  constructor(now: () => number = Date.now, random: (bytes: Uint8Array) => void = (bytes) => void crypto.getRandomValues(bytes)) {
+  constructor(now: () => number = Date.now, random: (bytes: Uint8Array<ArrayBuffer>) => void = (bytes) => void crypto.getRandomValues(bytes)) {
     this.#now = now;
     this.#random = random;
   }
