@@ -145,7 +145,10 @@ export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedB
       counts[name] = rows.length;
     }
     const nights = (bundle.rows.get('nights') ?? []) as readonly NightRecord[];
-    await database.nightTallies.bulkAdd(talliesFromRows(nights, (bundle.rows.get('transits') ?? []) as readonly TransitRecord[]));
+    // A transit whose night the bundle lacks (a hand-made folder) is restored but has no night to tally under.
+    const nightIds = new Set(nights.map((n) => n.id));
+    const transits = ((bundle.rows.get('transits') ?? []) as readonly TransitRecord[]).filter((t) => nightIds.has(t.nightId));
+    await database.nightTallies.bulkAdd(talliesFromRows(nights, transits));
   });
   return counts;
 }

@@ -147,6 +147,18 @@ describe('every path that writes transits keeps nightTallies true', () => {
     target.close();
   });
 
+  test('a restore keeps a transit whose night the bundle lacks, and tallies the others', async () => {
+    const source = await archiveWith(['n1'], [transitRow('a', { nightId: 'n1', utcMjd: 61_000.8 })]);
+    await source.transits.put(transitRow('orphan', { nightId: 'not-in-bundle', utcMjd: 61_005.5 }));
+    const exported = await exportBundle(source, UNCONTROLLED, NOW, 'test');
+    const target = new ArchiveDatabase(uniqueDatabaseName('tallies-orphan'));
+    await restoreBundle(target, await verifyBundle(target, exported.bytes, UNCONTROLLED), 'into-empty');
+    expect(await target.transits.get('orphan')).toBeDefined();
+    expect(await readNightTallies(target)).toStrictEqual([tally('n1', 1, 0, 61_000.8, 61_000.8)]);
+    source.close();
+    target.close();
+  });
+
   test('the demo load fills the tallies and its removal takes them all away', async () => {
     const database = new ArchiveDatabase(uniqueDatabaseName('tallies-demo'));
     const counts = await loadDemoIfFirstStart(database, async () => new Uint8Array(await readFile('assets/demo/demo-archive.mlbundle')), NOW);
