@@ -3,7 +3,7 @@ import { decodeUtf8 } from '../../../core/formats/utf8.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
 import { nowUtcIso } from '../../store/nowUtcIso.ts';
 import { exportBundle, recordExport } from '../../exchange/bundleExport.ts';
-import { countArchiveRows, restoreBundle, verifyBundle, type RestoreMode } from '../../exchange/bundleRestore.ts';
+import { countArchiveRows, restoreBundle, type RestoreMode } from '../../exchange/bundleRestore.ts';
 import { importEarthOrientation, importLeapSecondsList } from '../../exchange/iersTables.ts';
 import { planImport, type ImportFileRequest } from '../../exchange/importPlan.ts';
 import type { ImportReport } from '../../exchange/importReport.ts';
@@ -12,6 +12,7 @@ import { describeStorageError } from '../../exchange/describeStorageError.ts';
 import { tableCsvBytes } from '../../exchange/tableExports.ts';
 import { StageClock } from '../../exchange/stageClock.ts';
 import { forgetParsedLog } from '../../exchange/parsedLogCache.ts';
+import { forgetVerifiedBundle, verifyBundleOnce } from '../../exchange/verifiedBundleCache.ts';
 import type { CsvTableName } from '../../../core/exchange-formats/archive-table-csv.ts';
 
 /** Hooks for the end-to-end tests only; the view sends them only when the page has `?test-hooks`. */
@@ -80,6 +81,8 @@ async function runIersImport(database: ArchiveDatabase, fileName: string, bytes:
 async function runWith(database: ArchiveDatabase, request: ExchangeRequest, control: TaskControl): Promise<ExchangeResult> {
   // The parse of a validated transit log is kept for the import that follows it, and for nothing else.
   if (request.kind !== 'exchange-validate' && request.kind !== 'exchange-import') forgetParsedLog();
+  // Likewise the bundle verified for the preview is kept for the restore that follows it.
+  if (request.kind !== 'bundle-verify' && request.kind !== 'bundle-restore') forgetVerifiedBundle();
   switch (request.kind) {
     case 'exchange-validate':
       return { kind: request.kind, report: (await planImport(database, request.file, nowUtcIso())).report };
@@ -104,18 +107,22 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
       return { kind: request.kind, bytes: exported.bytes, createdUtc, rowCounts: exported.rowCounts };
     }
     case 'bundle-verify': {
-      const bundle = await verifyBundle(database, request.bytes, control);
+      const bundle = await verifyBundleOnce(database, request.bytes, control);
       const { createdUtc, producer, schemaVersion } = bundle.header;
       return { kind: request.kind, createdUtc, producer, schemaVersion, tables: bundle.manifest.tables.map((t) => ({ name: t.name, rows: t.rows })), archiveRows: await countArchiveRows(database) };
     }
     case 'bundle-restore': {
       const clock = new StageClock('bundle restore');
-      const verified = await verifyBundle(database, request.bytes, control);
-      clock.lap('unzip, read and verify');
-      const rowCounts = await restoreBundle(database, verified, request.mode, control);
-      clock.lap('write');
-      clock.log();
-      return { kind: request.kind, rowCounts };
+      const verified = await verifyBundleOnce(database, request.bytes, control);
+      clock.lap('unzip, read and verify (or the preview\'s check reused)');
+      try {
+        const rowCounts = await restoreBundle(database, verified, request.mode, control);
+        clock.lap('write');
+        clock.log();
+        return { kind: request.kind, rowCounts };
+      } finally {
+        forgetVerifiedBundle();
+      }
     }
     case 'iers-import':
       return runIersImport(database, request.fileName, request.bytes);
