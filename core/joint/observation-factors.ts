@@ -1,4 +1,5 @@
 import { createNightContext } from '../astrometry/night-context.ts';
+import { PlanetaryNutationGrid } from '../earth/planetary-nutation-grid.ts';
 import { prepareStars } from '../astrometry/prepared-stars.ts';
 import { reduceNight } from '../astrometry/reduce-night.ts';
 import {
@@ -22,6 +23,8 @@ export function fillObservationFactors(observations: JointObservation[], stars: 
     parallaxMas: s.parallaxMas ?? 0, radialVelocityKmS: s.radialVelocityKmS ?? 0, epochJulianYear: s.epochJyear,
   })));
   let first = 0;
+  // One grid of the slow planetary nutation terms for all nights (< 1 µas from the full series; planetary-nutation-grid.ts).
+  const planetaryNutation = new PlanetaryNutationGrid();
   while (first < observations.length) {
     let end = first;
     while (end < observations.length && observations[end].night === observations[first].night) end++;
@@ -37,7 +40,7 @@ export function fillObservationFactors(observations: JointObservation[], stars: 
     const centre = (low + high) / 2;
     const night = createNightContext({
       centreTt: { jd1: 2451545, jd2: centre }, halfWidthDays: Math.max(0.5, (high - low) / 2 + 0.01), site, weather: null,
-      instantFromTt: (t) => timeScale.fromTt(t),
+      instantFromTt: (t) => timeScale.fromTt(t), planetaryNutation,
     });
     const out = new Float64Array(count * RESULT_STRIDE);
     reduceNight(night, packed, starIndex, tt, out);

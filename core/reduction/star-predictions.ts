@@ -1,5 +1,6 @@
 import { iauEarthOrientation } from '../astrometry/iau-earth-orientation.ts';
 import { createNightContext, type NightContext } from '../astrometry/night-context.ts';
+import { PlanetaryNutationGrid } from '../earth/planetary-nutation-grid.ts';
 import { observedPlace, type ObservedPlace } from '../astrometry/observed-place.ts';
 import { placeContext } from '../astrometry/place-context.ts';
 import { prepareStars } from '../astrometry/prepared-stars.ts';
@@ -15,6 +16,12 @@ import type { StarListRow } from '../formats/star-list.ts';
 import type { Culmination } from '../instrument/culmination.ts';
 import { DEG, SECONDS_PER_DAY } from '../units.ts';
 import { NightSlowTerms } from './night-slow-terms.ts';
+
+/**
+ * The slow planetary nutation terms shared by every night's batch context (< 1 µas from the full
+ * series, core/earth/planetary-nutation-grid.ts): their nodes are computed once per process, not per night.
+ */
+const SHARED_PLANETARY_NUTATION = new PlanetaryNutationGrid();
 
 /** Half a sidereal day in UT1 seconds: the search window on either side of a rough time. */
 const HALF_SIDEREAL_DAY_S = 43_082.045;
@@ -124,7 +131,7 @@ export class NightPredictions {
       const centre = this.instantFromUtc(centreUtc);
       // UTC − TT is constant within the context's day but across a leap second, where the full-model check below catches any error.
       const utcOf = (tt: { jd1: number; jd2: number }) => ({ jd1: centreUtc.jd1, jd2: centreUtc.jd2 + (tt.jd1 - centre.tt.jd1) + (tt.jd2 - centre.tt.jd2) });
-      const context = createNightContext({ centreTt: centre.tt, halfWidthDays: 0.5, site: this.site, weather: null, instantFromTt: (tt) => this.instantFromUtc(utcOf(tt)) });
+      const context = createNightContext({ centreTt: centre.tt, halfWidthDays: 0.5, site: this.site, weather: null, instantFromTt: (tt) => this.instantFromUtc(utcOf(tt)), planetaryNutation: SHARED_PLANETARY_NUTATION });
       entry = { context, slow: new NightSlowTerms(centre.tt, 0.5) };
       this.contexts.set(bucket, entry);
     }
