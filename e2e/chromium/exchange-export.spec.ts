@@ -25,7 +25,7 @@ test('the stars table downloads as an RFC 4180 CSV in the star-list layout', asy
   expect(file.suggestedFilename()).toMatch(/^meridian-ledger-stars-\d{4}-\d\d-\d\d\.csv$/);
   const text = await readFile(await file.path(), 'utf8');
   const lines = text.split('\r\n');
-  expect(lines[0]).toBe('id,label,raDeg,decDeg,epochJyear,pmRaCosDecMasYr,pmDecMasYr,parallaxMas,parallaxSigmaMas,radialVelocityKmS,magnitude,source,programme,archiveId');
+  expect(lines[0]).toBe('id,label,raDeg,decDeg,epochJyear,pmRaCosDecMasYr,pmDecMasYr,parallaxMas,parallaxSigmaMas,positionSigmaMas,pmSigmaMasYr,radialVelocityKmS,magnitude,source,programme,archiveId');
   // Rows come in the archive's key order (random ids), so find each star by its id.
   expect(lines.find((l) => l.startsWith('QX-1,'))).toMatch(/^QX-1,"Invented, one",84\.1234567890123,22\.44,2016,,,4\.1,/);
   expect(lines.find((l) => l.startsWith('QX-2,'))).toMatch(/^QX-2,Invented two,130\.5,61\.25,2016,,,,/);
