@@ -1,3 +1,4 @@
+import { keepLaunchCopy, readLaunchCopy, type CopyStore } from '../store/launchCopy.ts';
 import type { InstrumentRecord } from '../../core/archive/records.ts';
 import type { OverviewNight } from './archiveQueries.ts';
 
@@ -17,31 +18,25 @@ const KEY = 'meridian-ledger:archive-overview';
 /** ~45 characters a night: 30,000 nights fit; a larger archive keeps no copy (localStorage holds ~5 MB per origin). */
 const MAX_CHARACTERS = 1_500_000;
 
-type Store = Pick<Storage, 'getItem' | 'setItem' | 'removeItem'>;
+type Store = CopyStore;
 type Packed = [id: string, localDate: string, instrumentIndex: number, transitCount: number];
 
 /** The copy kept for `databaseName`, or null when there is none, it is of another archive, or any part of it is damaged. */
 export function loadOverviewCopy(storage: Store | null, databaseName: string): OverviewCopy | null {
-  try {
-    const text = storage?.getItem(KEY) ?? null;
-    if (text === null) return null;
-    const value = JSON.parse(text) as { databaseName?: unknown; instruments?: unknown; nights?: unknown };
-    if (value.databaseName !== databaseName || !Array.isArray(value.instruments) || !Array.isArray(value.nights)) return null;
-    const instruments = value.instruments as { id?: unknown; label?: unknown }[];
-    if (!instruments.every((i) => typeof i.id === 'string' && typeof i.label === 'string')) return null;
-    const ids = instruments.map((i) => i.id as string);
-    const nights: OverviewNight[] = [];
-    for (const row of value.nights as unknown[]) {
-      if (!Array.isArray(row) || row.length !== 4) return null;
-      const [id, localDate, instrumentIndex, transitCount] = row as Packed;
-      if (typeof id !== 'string' || typeof localDate !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(localDate) || ids[instrumentIndex] === undefined
-        || !Number.isInteger(transitCount) || transitCount < 0) return null;
-      nights.push({ night: { id, localDate, instrumentId: ids[instrumentIndex] }, transitCount });
-    }
-    return { nights, instruments: instruments as OverviewCopy['instruments'] };
-  } catch {
-    return null; // unreadable JSON or storage refused: the overview waits for the archive, as before
+  const value = readLaunchCopy(storage, KEY) as { databaseName?: unknown; instruments?: unknown; nights?: unknown } | null;
+  if (value === null || value.databaseName !== databaseName || !Array.isArray(value.instruments) || !Array.isArray(value.nights)) return null;
+  const instruments = value.instruments as { id?: unknown; label?: unknown }[];
+  if (!instruments.every((i) => typeof i === 'object' && i !== null && typeof i.id === 'string' && typeof i.label === 'string')) return null;
+  const ids = instruments.map((i) => i.id as string);
+  const nights: OverviewNight[] = [];
+  for (const row of value.nights as unknown[]) {
+    if (!Array.isArray(row) || row.length !== 4) return null;
+    const [id, localDate, instrumentIndex, transitCount] = row as Packed;
+    if (typeof id !== 'string' || typeof localDate !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(localDate) || ids[instrumentIndex] === undefined
+      || !Number.isInteger(transitCount) || transitCount < 0) return null;
+    nights.push({ night: { id, localDate, instrumentId: ids[instrumentIndex] }, transitCount });
   }
+  return { nights, instruments: instruments as OverviewCopy['instruments'] };
 }
 
 /** Keeps the copy for `databaseName`; returns false (and keeps none) when it is too large or storage refuses it. */
@@ -56,15 +51,5 @@ export function saveOverviewCopy(storage: Store | null, databaseName: string, co
     }
   }
   const nights = copy.nights.map((n): Packed => [n.night.id, n.night.localDate, index.get(n.night.instrumentId) ?? 0, n.transitCount]);
-  const text = JSON.stringify({ databaseName, instruments, nights });
-  try {
-    if (text.length > MAX_CHARACTERS) {
-      storage.removeItem(KEY);
-      return false;
-    }
-    storage.setItem(KEY, text);
-    return true;
-  } catch {
-    return false;
-  }
+  return keepLaunchCopy(storage, KEY, { databaseName, instruments, nights }, MAX_CHARACTERS);
 }

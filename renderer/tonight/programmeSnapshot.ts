@@ -1,3 +1,4 @@
+import { keepLaunchCopy, readLaunchCopy, type CopyStore } from '../store/launchCopy.ts';
 import type { InstrumentRecord, SiteRecord, StarRecord } from '../../core/archive/records.ts';
 
 /**
@@ -17,36 +18,21 @@ const KEY = 'meridian-ledger:tonight-programme-inputs';
 /** A larger copy (a programme of many thousand stars) is not kept: localStorage holds ~5 MB per origin. */
 const MAX_CHARACTERS = 1_000_000;
 
-type Store = Pick<Storage, 'getItem' | 'setItem' | 'removeItem'>;
+type Store = CopyStore;
 
 const hasIds = (rows: unknown): rows is { id: string }[] =>
   Array.isArray(rows) && rows.every((row) => typeof row === 'object' && row !== null && typeof (row as { id?: unknown }).id === 'string');
 
 /** The copy kept for `databaseName`, or null when there is none, it is of another archive, or it is damaged. */
 export function loadProgrammeInputs(storage: Store | null, databaseName: string): ProgrammeInputs | null {
-  try {
-    const text = storage?.getItem(KEY) ?? null;
-    if (text === null) return null;
-    const value = JSON.parse(text) as { databaseName?: unknown; sites?: unknown; instruments?: unknown; stars?: unknown };
-    if (value.databaseName !== databaseName || !hasIds(value.sites) || !hasIds(value.instruments) || !hasIds(value.stars)) return null;
-    return { sites: value.sites as SiteRecord[], instruments: value.instruments as InstrumentRecord[], stars: value.stars as StarRecord[] };
-  } catch {
-    return null; // unreadable JSON or storage refused: start as without a copy
-  }
+  // Unreadable JSON or storage refused: start as without a copy.
+  const value = readLaunchCopy(storage, KEY) as { databaseName?: unknown; sites?: unknown; instruments?: unknown; stars?: unknown } | null;
+  if (value === null || value.databaseName !== databaseName || !hasIds(value.sites) || !hasIds(value.instruments) || !hasIds(value.stars)) return null;
+  return { sites: value.sites as SiteRecord[], instruments: value.instruments as InstrumentRecord[], stars: value.stars as StarRecord[] };
 }
 
 /** Keeps the copy for `databaseName`; returns false (and keeps none) when it is too large or storage refuses it. */
 export function saveProgrammeInputs(storage: Store | null, databaseName: string, inputs: ProgrammeInputs): boolean {
-  if (storage === null) return false;
-  const text = JSON.stringify({ databaseName, sites: inputs.sites, instruments: inputs.instruments, stars: inputs.stars });
-  try {
-    if (text.length > MAX_CHARACTERS) {
-      storage.removeItem(KEY);
-      return false;
-    }
-    storage.setItem(KEY, text);
-    return true;
-  } catch {
-    return false; // quota or privacy settings: the next launch waits for the archive, as before
-  }
+  // Too large, or quota or privacy settings: the next launch waits for the archive, as before.
+  return keepLaunchCopy(storage, KEY, { databaseName, sites: inputs.sites, instruments: inputs.instruments, stars: inputs.stars }, MAX_CHARACTERS);
 }

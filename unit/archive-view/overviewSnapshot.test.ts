@@ -41,4 +41,17 @@ describe('overviewSnapshot', () => {
     expect(saveOverviewCopy(storage, 'archive-a', many)).toBe(false);
     expect(loadOverviewCopy(storage, 'archive-a')).toBeNull();
   });
+
+  test('unreadable text, a null instrument, or storage that refuses to write give no copy and throw nothing', () => {
+    const storage = memoryStorage();
+    saveOverviewCopy(storage, 'archive-a', copy);
+    const [key] = [...storage.items.keys()];
+    const good = JSON.parse(storage.items.get(key) ?? '{}') as { instruments: unknown[] };
+    for (const text of ['{not json', 'null', '5', JSON.stringify({ ...good, instruments: [null] })]) {
+      storage.items.set(key, text);
+      expect(loadOverviewCopy(storage, 'archive-a'), text).toBeNull();
+    }
+    const refusing = { getItem: () => null, setItem: () => { throw new DOMException('full', 'QuotaExceededError'); }, removeItem: () => {} };
+    expect(saveOverviewCopy(refusing, 'archive-a', copy)).toBe(false);
+  });
 });
