@@ -88,4 +88,18 @@ describe('runNightQuality({ databaseName })', () => {
     const rest = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, UNCONTROLLED);
     expect(rest).toMatchObject({ reused: NIGHT_QUALITY_CHUNK, reduced: fresh.kept.length - NIGHT_QUALITY_CHUNK });
   });
+
+  test('an imported Earth-orientation day changes every night\'s key: all are reduced again, with the archive\'s tables', async () => {
+    const fresh = await demoSubset(4);
+    const first = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, UNCONTROLLED);
+    expect(first.reduced).toBe(fresh.kept.length);
+    const firstNight = (await fresh.database.nights.orderBy('localDate').first())!;
+    const mjd = Math.round(Date.parse(`${firstNight.localDate}T00:00:00Z`) / 86_400_000 + 40_587); // MJD = Unix days + 40587 (common practice)
+    // An invented value, 0.5 s off the bundled C04 day the demo was simulated with: that night's clock-like error grows.
+    await fresh.database.earthOrientation.bulkPut([mjd, mjd + 1].map((day) => ({ mjd: day, dut1S: 0.5, xpArcsec: 0, ypArcsec: 0, kind: 'final' as const, source: 'invented test table' })));
+    const again = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, UNCONTROLLED);
+    expect(again).toMatchObject({ reused: 0, reduced: fresh.kept.length });
+    const before = first.nights.find((q) => q.nightId === firstNight.id)!, after = again.nights.find((q) => q.nightId === firstNight.id)!;
+    expect(after.unitWeightErrorTime!).toBeGreaterThan(before.unitWeightErrorTime!);
+  });
 });

@@ -1,15 +1,13 @@
 import type { NightRecord } from '../../../core/archive/records.ts';
 import { DEFAULT_JOINT_MODEL } from '../../../core/joint/joint-model.ts';
 import { TaskCancelledError, type TaskControl } from '../../../core/task/task-control.ts';
-import { bundledEarthOrientationTable } from '../../../core/time/bundled-earth-orientation.ts';
-import { BUNDLED_LEAP_SECONDS } from '../../../core/time/bundled-leap-seconds.ts';
-import { TimeScale } from '../../../core/time/timescale.ts';
 import type { NightQuality } from '../../archive/nightQuality.ts';
 import { NightQualityCache } from '../../archive/nightQualityCache.ts';
-import { archiveContextKey } from '../../archive/nightQualityKey.ts';
+import { archiveContextKey, fnv1a64 } from '../../archive/nightQualityKey.ts';
 import { NightChangeLedger, nightStampKey, readNightStamps } from '../../archive/nightQualityStamps.ts';
 import { reduceStoredNights } from '../../archive/reduceStoredNights.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
+import { archiveTimeScale } from './archiveTimeScale.ts';
 
 export interface NightQualityRequest {
   readonly kind: 'night-quality';
@@ -46,8 +44,6 @@ export function nightQualityCache(databaseName: string): NightQualityCache {
   return sessionOf(databaseName).cache;
 }
 
-let timeScale: TimeScale | null = null;
-
 /**
  * Reduces every visible night of the archive whose change key (nightStampKey: context, night
  * record, its tally, last edit or import commit; no transit body read) is not in the
@@ -67,7 +63,12 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
       const reason = `the archive holds ${sites.length} visible sites; the nightly reduction reads one site (merge or remove sites first)`;
       return { kind: 'night-quality', reused: 0, reduced: 0, nights: nights.map((n) => ({ nightId: n.id, key: '', reduced: false, unitWeightError: null, unitWeightErrorTime: null, unitWeightErrorZenith: null, transitsUsed: 0, transitsRejected: 0, transitsUserRejected: 0, failure: reason })) };
     }
-    const contextKey = archiveContextKey(sites[0], instruments, stars);
+    // The archive's own tables (bundled with any imported IERS files), as Tonight and the joint solve use them; an
+    // imported table changes every night's key, so the nights are reduced again with it.
+    const { scale: timeScale, tablesInUse } = await archiveTimeScale(database);
+    const lastEop = await database.earthOrientation.orderBy('mjd').last();
+    const tablesKey = `${tablesInUse}|${await database.earthOrientation.count()}|${lastEop?.mjd ?? ''}|${await database.leapSeconds.count()}`;
+    const contextKey = fnv1a64(`${archiveContextKey(sites[0], instruments, stars)}|${tablesKey}`);
     let stamps = await readNightStamps(database, nights, ledger);
     if (stamps.rewritten) {
       cache.retainOnly(new Set());
@@ -77,7 +78,6 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
     const keys = new Map(nights.map((n) => [n.id, nightStampKey(contextKey, n, stamps.tallies.get(n.id) ?? 'n=0', ledger.touched.get(n.id) ?? '')]));
     const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined);
     cache.retainOnly(new Set(keys.keys()));
-    timeScale ??= new TimeScale(BUNDLED_LEAP_SECONDS, bundledEarthOrientationTable());
     const apriori = { wireSigmaS: DEFAULT_JOINT_MODEL.wireSigmaS, readingSigmaArcsec: DEFAULT_JOINT_MODEL.readingSigmaArcsec };
     control.reportProgress(0, stale.length);
     for (let start = 0; start < stale.length; start += NIGHT_QUALITY_CHUNK) {
