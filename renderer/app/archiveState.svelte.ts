@@ -17,6 +17,8 @@ export class ArchiveState {
   sweptImports = $state(0);
   /** Why the demo archive could not be loaded on first start, if it could not. */
   demoFailure = $state('');
+  /** While an older archive is upgraded at open: from and to which schema version; null otherwise. */
+  upgrading = $state.raw<{ readonly from: number; readonly to: number } | null>(null);
   /** The IndexedDB database the archive is (being) opened from. */
   databaseName = $state(ARCHIVE_DATABASE_NAME);
 
@@ -28,7 +30,8 @@ export class ArchiveState {
    */
   async start(storage: StorageManagerLike | undefined, databaseName?: string, fetchDemo?: () => Promise<Uint8Array>, beforeUpgrade?: BeforeUpgrade): Promise<void> {
     this.databaseName = databaseName ?? ARCHIVE_DATABASE_NAME;
-    const result = await openArchive(this.databaseName, beforeUpgrade);
+    const result = await openArchive(this.databaseName, beforeUpgrade, (from, to) => (this.upgrading = { from, to }));
+    this.upgrading = null;
     if (result.kind === 'open') {
       this.sweptImports = await sweepInterruptedImports(result.database, nowUtcIso());
       if (fetchDemo !== undefined) {

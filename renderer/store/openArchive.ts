@@ -28,6 +28,8 @@ export async function openArchive(
   name: string = ARCHIVE_DATABASE_NAME,
   /** Runs when the archive on disk is older than this build, before the upgrade; a failure it returns stops the open. */
   beforeUpgrade?: (fromSchemaVersion: number) => Promise<ArchiveOpenFailure | null>,
+  /** Told when the upgrade itself starts (after `beforeUpgrade`), so the app can say why opening takes long. */
+  onUpgradeStart?: (fromSchemaVersion: number, toSchemaVersion: number) => void,
 ): Promise<ArchiveOpenResult> {
   let database: ArchiveDatabase | undefined;
   try {
@@ -40,6 +42,7 @@ export async function openArchive(
       const refusal = await beforeUpgrade(nativeVersion / DEXIE_VERSION_FACTOR);
       if (refusal !== null) return { kind: 'failed', failure: refusal };
     }
+    if (nativeVersion !== null && nativeVersion < ARCHIVE_SCHEMA_VERSION * DEXIE_VERSION_FACTOR) onUpgradeStart?.(nativeVersion / DEXIE_VERSION_FACTOR, ARCHIVE_SCHEMA_VERSION);
     database = new ArchiveDatabase(name);
     await database.open();
     return { kind: 'open', database };

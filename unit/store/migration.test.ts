@@ -56,13 +56,16 @@ describe.each(earlier.map((schema) => [schema.version, schema] as const))('upgra
     const name = uniqueDatabaseName(`migrate-v${version}`);
     await writeOldDatabase(name, schema, fixture);
     const hookVersions: number[] = [];
+    const upgrades: [number, number][] = [];
     const opened = await openArchive(name, async (fromSchemaVersion) => {
       hookVersions.push(fromSchemaVersion);
       return null;
-    });
+    }, (from, to) => upgrades.push([from, to]));
     if (opened.kind !== 'open') throw new Error(`openArchive failed on the v${version} fixture: ${JSON.stringify(opened.failure)}`);
     const database = opened.database;
     expect(hookVersions).toEqual([version]);
+    // The app is told the upgrade starts (it says so in a banner while the rows are read).
+    expect(upgrades).toEqual([[version, ARCHIVE_SCHEMA_VERSION]]);
     expect(database.verno).toBe(ARCHIVE_SCHEMA_VERSION);
     for (const [table, rows] of Object.entries(fixture.tables)) {
       const expected = rows.map((row) => expectedAfterUpgrade(version, ARCHIVE_SCHEMA_VERSION, table, row));
