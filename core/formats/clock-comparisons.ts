@@ -2,6 +2,7 @@ import { parseDateCell, parseNumberCell } from './cells.ts';
 import { readCsvTable, unusableHeader } from './csv-table.ts';
 import type { TableRow } from './csv-table.ts';
 import type { ParseResult, Rejection } from './parse-result.ts';
+import { isWithinNightWindow } from './night-window.ts';
 import { parseUtcCell, utcCountS } from './utc-instant.ts';
 import type { UtcInstant } from './utc-instant.ts';
 
@@ -35,9 +36,7 @@ function parseComparison(row: TableRow, problems: Problems): ClockComparisonRow 
   const clock = parseNumberCell(get('clockS'), 'clock seconds', -86_400, 172_800);
   if (!clock.ok) problems.push({ column: 'clockS', reason: clock.reason });
   if (!date.ok || !utc.ok || !clock.ok) return null;
-  // The signal must fall within the night that starts on nightDate: from its 0 h UTC − 1 day to +2 days.
-  const dayOffsetS = utcCountS(utc.value) - date.value * 86_400;
-  if (dayOffsetS < -86_400 || dayOffsetS > 172_800) {
+  if (!isWithinNightWindow(utc.value, date.value)) {
     problems.push({ column: 'utc', reason: `signal time '${get('utc').trim()}' is more than a day away from the night ${get('nightDate').trim()}; check the date` });
     return null;
   }

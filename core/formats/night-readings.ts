@@ -2,7 +2,8 @@ import { parseDateCell, parseNumberCell } from './cells.ts';
 import { readCsvTable, unusableHeader } from './csv-table.ts';
 import type { TableRow } from './csv-table.ts';
 import type { ParseResult, Rejection } from './parse-result.ts';
-import { parseUtcCell, utcCountS } from './utc-instant.ts';
+import { isWithinNightWindow } from './night-window.ts';
+import { parseUtcCell } from './utc-instant.ts';
 import type { UtcInstant } from './utc-instant.ts';
 
 /**
@@ -46,8 +47,7 @@ function parseReading(row: TableRow, present: readonly string[], problems: Probl
     problems.push({ column: present[0], reason: `no reading: give ${present.join(' or ')}` });
     return null;
   }
-  const dayOffsetS = utcCountS(utc.value) - date.value * 86_400;
-  if (dayOffsetS < -86_400 || dayOffsetS > 172_800) {
+  if (!isWithinNightWindow(utc.value, date.value)) {
     problems.push({ column: 'utc', reason: `reading time '${get('utc').trim()}' is more than a day away from the night ${get('nightDate').trim()}; check the date` });
     return null;
   }
