@@ -1,3 +1,4 @@
+import type { Locator, Page } from '@playwright/test';
 import { expect, test } from './fixtures.ts';
 import { findNonRedColours, scanScreenshot } from './nightColours.ts';
 
@@ -6,13 +7,19 @@ import { findNonRedColours, scanScreenshot } from './nightColours.ts';
 // every run; the clock keeps flowing from there so the countdown ticks.
 const EVENING = new Date('2026-12-01T17:00:00Z');
 
-test('the Tonight view lists the programme in time order, logs a transit by keyboard, flags a wrong wire, and keeps both across a reload', async ({ page }) => {
-  test.setTimeout(90_000);
+/** Tonight at EVENING on a 1400 × 1000 window, once its programme lists the demo's stars; the programme's rows. */
+async function openTonightAtEvening(page: Page): Promise<Locator> {
   await page.setViewportSize({ width: 1400, height: 1000 });
   await page.clock.install({ time: EVENING });
   await page.goto('./#/tonight');
   const rows = page.getByTestId('programme').locator('tbody tr');
   await expect.poll(() => rows.count(), { timeout: 30_000 }).toBeGreaterThan(20);
+  return rows;
+}
+
+test('the Tonight view lists the programme in time order, logs a transit by keyboard, flags a wrong wire, and keeps both across a reload', async ({ page }) => {
+  test.setTimeout(90_000);
+  const rows = await openTonightAtEvening(page);
 
   const times = (await rows.evaluateAll((trs) => trs.map((tr) => Number(tr.getAttribute('data-utc-mjd')))));
   expect(times).toEqual([...times].sort((a, b) => a - b));
@@ -75,11 +82,7 @@ test('the Tonight view lists the programme in time order, logs a transit by keyb
 
 test('on a later launch Tonight shows the programme from the last session\'s copy while the archive is still opening, and entries wait for it', async ({ page }) => {
   test.setTimeout(90_000);
-  await page.setViewportSize({ width: 1400, height: 1000 });
-  await page.clock.install({ time: EVENING });
-  await page.goto('./#/tonight');
-  const rows = page.getByTestId('programme').locator('tbody tr');
-  await expect.poll(() => rows.count(), { timeout: 30_000 }).toBeGreaterThan(20);
+  const rows = await openTonightAtEvening(page);
   const shown = await rows.count();
   await expect(page.getByText(/^Tables: /)).not.toContainText('still opening');
 
