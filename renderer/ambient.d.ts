@@ -5,3 +5,5 @@
 
 /** The package version, put in by renderer/vite.config.ts at build time. */
 declare const __APP_VERSION__: string;
+/** An identity of this build's code (renderer/vite.config.ts buildId). */
+declare const __BUILD_ID__: string;

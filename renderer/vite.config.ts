@@ -28,12 +28,20 @@ function appVersion(command: 'build' | 'serve', isPreview: boolean): string {
   );
 }
 
+/**
+ * An identity of this build: results the app keeps between launches outside the archive (the
+ * overview's nightly unit-weight errors) are reused only by the build that computed them, so a
+ * new build never shows a result an older reduction made. The build's start time serves (no file
+ * or Node module may be read here: the layering rule keeps renderer/ to renderer/ and core/).
+ */
+const BUILD_ID = new Date().toISOString();
+
 // Paths are relative to the repository root, where every npm script and serve-web.mjs run.
 export default defineConfig(({ command, isPreview }) => ({
   root: 'renderer',
   base: './',
   plugins: [svelte(), relaxStylePolicyInDev()],
-  define: { __APP_VERSION__: JSON.stringify(appVersion(command, isPreview === true)) },
+  define: { __APP_VERSION__: JSON.stringify(appVersion(command, isPreview === true)), __BUILD_ID__: JSON.stringify(BUILD_ID) },
   worker: { format: 'es' },
   build: {
     // RENDERER_OUT_DIR (absolute) lets parallel e2e runs on one machine build and serve apart.

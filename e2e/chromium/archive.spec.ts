@@ -321,7 +321,10 @@ test('a 10,000-night archive: overview render and key-stage figures', async ({ p
   console.log(`big archive: ${total} nights; first mark seen ${headingMs.toFixed(0)} ms (the last launch's copy or the archive's), all the archive's marks painted ${paintMs.toFixed(0)} ms after navigation start; long tasks (ms long @ ms after start) ${longTasks.flatMap((t, i) => (i % 2 === 0 ? [`${t.toFixed(0)} @ ${longTasks[i + 1].toFixed(0)}`] : [])).join(', ')}; re-colour ${recolourMs.toFixed(0)} ms; ` +
     `key-stage reads: all ${reads.transits} transit bodies ${reads.bodiesMs.toFixed(0)} ms vs ${reads.nights} index counts ${reads.countsMs.toFixed(0)} ms; ${load} cores`);
   expect(reads.transits).toBeGreaterThan(90_000);
-  expect(longTasks.length).toBeGreaterThan(0);
+  // The figures above are printed, not asserted (a quiet machine may show no task over 50 ms at all);
+  // what must hold is that this Chromium reports long tasks, so an empty list means none happened.
+  expect(await page.evaluate(() => PerformanceObserver.supportedEntryTypes.includes('longtask'))).toBe(true);
+  expect(longTasks.length % 2).toBe(0);
 });
 
 test('on a later launch the overview shows the last launch\'s nights while the archive is still opening, then the archive\'s', async ({ page }) => {

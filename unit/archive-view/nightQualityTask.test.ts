@@ -10,7 +10,8 @@ import { ArchiveEditor } from '../../renderer/archive/archiveEditor.ts';
 import { uweClass } from '../../renderer/archive/uweClasses.ts';
 import { loadDemoIfFirstStart } from '../../renderer/demo/demoArchive.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
-import { NIGHT_QUALITY_CHUNK, nightQualityCache, runNightQuality } from '../../renderer/worker/tasks/nightQuality.ts';
+import { endNightQualitySession, NIGHT_QUALITY_CHUNK, nightQualityCache, runNightQuality } from '../../renderer/worker/tasks/nightQuality.ts';
+import { DerivedResultsDatabase } from '../../renderer/store/derivedResults.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
 
 interface Truth { blunders: { transitId: string; kind: string }[] }
@@ -101,5 +102,27 @@ describe('runNightQuality({ databaseName })', () => {
     expect(again).toMatchObject({ reused: 0, reduced: fresh.kept.length });
     const before = first.nights.find((q) => q.nightId === firstNight.id)!, after = again.nights.find((q) => q.nightId === firstNight.id)!;
     expect(after.unitWeightErrorTime!).toBeGreaterThan(before.unitWeightErrorTime!);
+  });
+
+  test('a new launch takes the qualities kept by the last one (nothing reduced again), and a night edited since is reduced again', async () => {
+    const fresh = await demoSubset(6);
+    const first = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, UNCONTROLLED);
+    expect(first.reduced).toBe(fresh.kept.length);
+    endNightQualitySession(fresh.name); // as closing the window ends the worker
+    const relaunched = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, UNCONTROLLED);
+    expect(relaunched).toMatchObject({ reduced: 0, reused: fresh.kept.length });
+    expect(relaunched.nights).toEqual(first.nights);
+    // A night whose record changed while the app was closed (e.g. another build wrote it) gets a new key: only it is reduced again.
+    const night = (await fresh.database.nights.get(fresh.kept[0]))!;
+    await fresh.database.nights.put({ ...night, note: `${night.note} (edited)`, updatedUtc: '2026-12-02T08:00:00.000Z' });
+    endNightQualitySession(fresh.name);
+    const afterEdit = await runNightQuality({ kind: 'night-quality', databaseName: fresh.name }, UNCONTROLLED);
+    expect(afterEdit).toMatchObject({ reduced: 1, reused: fresh.kept.length - 1 });
+    // Kept beside the archive, never in it: the archive has no such table, and the kept entries name this build.
+    expect(fresh.database.tables.map((t) => t.name)).not.toContain('nightQualities');
+    const kept = new DerivedResultsDatabase(fresh.name);
+    expect((await kept.nightQualities.toArray()).every((row) => row.buildId === 'unit-tests')).toBe(true);
+    expect(await kept.nightQualities.count()).toBe(fresh.kept.length);
+    kept.close();
   });
 });

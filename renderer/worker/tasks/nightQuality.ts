@@ -8,6 +8,7 @@ import { NightChangeLedger, nightStampKey, readNightStamps } from '../../archive
 import { reduceStoredNights } from '../../archive/reduceStoredNights.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
 import { archiveTimeScale } from './archiveTimeScale.ts';
+import { keepOnly, keepQualities, loadKeptQualities } from './keptNightQualities.ts';
 
 export interface NightQualityRequest {
   readonly kind: 'night-quality';
@@ -29,15 +30,22 @@ export const NIGHT_QUALITY_CHUNK = 20;
 /**
  * The per-session cache, one per database name, held in the worker: it lives as long as the app
  * window, survives closing and reopening the Archive view, and keeps the nights finished before a
- * cancel. Not persisted: the results are derived data, rebuilt in the background in a few
- * minutes at most, and keeping them out of the schema keeps them out of bundles and backups.
+ * cancel. It starts from the qualities this build kept at earlier launches (keptNightQualities.ts,
+ * a database beside the archive, never in it: out of bundles and backups), so a million-transit
+ * archive is not reduced again at every start; every night computed is kept there too.
  */
-const CACHES = new Map<string, { readonly cache: NightQualityCache; readonly ledger: NightChangeLedger }>();
+interface Session { readonly cache: NightQualityCache; readonly ledger: NightChangeLedger; loaded: boolean }
+const CACHES = new Map<string, Session>();
 
-function sessionOf(databaseName: string): { readonly cache: NightQualityCache; readonly ledger: NightChangeLedger } {
+function sessionOf(databaseName: string): Session {
   let session = CACHES.get(databaseName);
-  if (session === undefined) CACHES.set(databaseName, (session = { cache: new NightQualityCache(), ledger: new NightChangeLedger() }));
+  if (session === undefined) CACHES.set(databaseName, (session = { cache: new NightQualityCache(), ledger: new NightChangeLedger(), loaded: false }));
   return session;
+}
+
+/** Ends the worker's session of `databaseName` as closing the window would (tests: the next run starts like a new launch). */
+export function endNightQualitySession(databaseName: string): void {
+  CACHES.delete(databaseName);
 }
 
 export function nightQualityCache(databaseName: string): NightQualityCache {
@@ -58,7 +66,12 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
       database.sites.toArray(), database.instruments.toArray(), database.instrumentEvents.toArray(),
       database.stars.toArray(), database.nights.toArray(),
     ]).then(([a, b, c, d, e]) => [visible(a), visible(b), visible(c), visible(d), visible(e)] as const);
-    const { cache, ledger } = sessionOf(request.databaseName);
+    const session = sessionOf(request.databaseName);
+    const { cache, ledger } = session;
+    if (!session.loaded) {
+      session.loaded = true;
+      await loadKeptQualities(request.databaseName, cache);
+    }
     if (sites.length !== 1) {
       const reason = `the archive holds ${sites.length} visible sites; the nightly reduction reads one site (merge or remove sites first)`;
       return { kind: 'night-quality', reused: 0, reduced: 0, nights: nights.map((n) => ({ nightId: n.id, key: '', reduced: false, unitWeightError: null, unitWeightErrorTime: null, unitWeightErrorZenith: null, transitsUsed: 0, transitsRejected: 0, transitsUserRejected: 0, failure: reason })) };
@@ -72,12 +85,14 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
     let stamps = await readNightStamps(database, nights, ledger);
     if (stamps.rewritten) {
       cache.retainOnly(new Set());
+      await keepOnly(request.databaseName, new Set());
       ledger.clear();
       stamps = await readNightStamps(database, nights, ledger);
     }
     const keys = new Map(nights.map((n) => [n.id, nightStampKey(contextKey, n, stamps.tallies.get(n.id) ?? 'n=0', ledger.touched.get(n.id) ?? '')]));
     const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined);
     cache.retainOnly(new Set(keys.keys()));
+    await keepOnly(request.databaseName, new Set(keys.keys()));
     const apriori = { wireSigmaS: DEFAULT_JOINT_MODEL.wireSigmaS, readingSigmaArcsec: DEFAULT_JOINT_MODEL.readingSigmaArcsec };
     control.reportProgress(0, stale.length);
     for (let start = 0; start < stale.length; start += NIGHT_QUALITY_CHUNK) {
@@ -90,6 +105,7 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
         site: sites[0], instruments, events, stars, nights: chunk, transits,
       }, { timeScale, apriori, keys });
       for (const result of results) cache.set(result);
+      await keepQualities(request.databaseName, results);
       control.reportProgress(Math.min(stale.length, start + chunk.length), stale.length);
     }
     return { kind: 'night-quality', reused: nights.length - stale.length, reduced: stale.length, nights: nights.map((n) => cache.get(n.id, keys.get(n.id) ?? '')).filter((q): q is NightQuality => q !== undefined) };
