@@ -13,6 +13,11 @@ export interface ArchiveTimeScale {
   readonly scale: TimeScale;
   /** e.g. "leap seconds: leap-seconds.list (imported); Earth orientation: bundled IERS C04 + finals2000A.daily (imported)". */
   readonly tablesInUse: string;
+  /**
+   * Changes when the stored tables do (their names, the number of leap-second steps and of
+   * Earth-orientation days, the last such day): what a result computed with them is keyed on.
+   */
+  readonly tablesKey: string;
 }
 
 /**
@@ -45,5 +50,7 @@ export async function archiveTimeScale(database: ArchiveDatabase): Promise<Archi
   const sources = [...new Set(eopRecords.map((r) => r.source))];
   const eopName = sources.length === 0 ? `${bundled.sourceName} (bundled)` : `${bundled.sourceName} (bundled) + ${sources.join(', ')} (imported)`;
   const eop = new SplicedEarthOrientation([(bundledDays ??= daysOfTable(bundled)), imported], eopName);
-  return { scale: new TimeScale(leapSeconds, eop), tablesInUse: `leap seconds: ${leapNote}; Earth orientation: ${eopName}` };
+  const tablesInUse = `leap seconds: ${leapNote}; Earth orientation: ${eopName}`;
+  const tablesKey = `${tablesInUse}|${eopRecords.length}|${eopRecords.at(-1)?.mjd ?? ''}|${leapRecords.length}`;
+  return { scale: new TimeScale(leapSeconds, eop), tablesInUse, tablesKey };
 }

@@ -78,9 +78,7 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
     }
     // The archive's own tables (bundled with any imported IERS files), as Tonight and the joint solve use them; an
     // imported table changes every night's key, so the nights are reduced again with it.
-    const { scale: timeScale, tablesInUse } = await archiveTimeScale(database);
-    const lastEop = await database.earthOrientation.orderBy('mjd').last();
-    const tablesKey = `${tablesInUse}|${await database.earthOrientation.count()}|${lastEop?.mjd ?? ''}|${await database.leapSeconds.count()}`;
+    const { scale: timeScale, tablesKey } = await archiveTimeScale(database);
     const contextKey = fnv1a64(`${archiveContextKey(sites[0], instruments, stars)}|${tablesKey}`);
     let stamps = await readNightStamps(database, nights, ledger);
     if (stamps.rewritten) {
