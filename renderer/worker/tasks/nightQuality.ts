@@ -8,7 +8,7 @@ import { NightChangeLedger, nightStampKey, readNightStamps } from '../../archive
 import { reduceStoredNights } from '../../archive/reduceStoredNights.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
 import { archiveTimeScale } from './archiveTimeScale.ts';
-import { keepOnly, keepQualities, loadKeptQualities } from './keptNightQualities.ts';
+import { KeptNightQualities } from './keptNightQualities.ts';
 
 export interface NightQualityRequest {
   readonly kind: 'night-quality';
@@ -60,6 +60,7 @@ export function nightQualityCache(databaseName: string): NightQualityCache {
  */
 export async function runNightQuality(request: NightQualityRequest, control: TaskControl): Promise<NightQualityResult> {
   const database = new ArchiveDatabase(request.databaseName);
+  const kept = new KeptNightQualities(request.databaseName);
   try {
     const visible = <T extends { readonly visibility: string }>(rows: readonly T[]): T[] => rows.filter((r) => r.visibility === 'visible');
     const [sites, instruments, events, stars, nights] = await Promise.all([
@@ -70,7 +71,7 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
     const { cache, ledger } = session;
     if (!session.loaded) {
       session.loaded = true;
-      await loadKeptQualities(request.databaseName, cache);
+      await kept.load(cache);
     }
     if (sites.length !== 1) {
       const reason = `the archive holds ${sites.length} visible sites; the nightly reduction reads one site (merge or remove sites first)`;
@@ -83,14 +84,14 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
     let stamps = await readNightStamps(database, nights, ledger);
     if (stamps.rewritten) {
       cache.retainOnly(new Set());
-      await keepOnly(request.databaseName, new Set());
+      await kept.keepOnly(new Set());
       ledger.clear();
       stamps = await readNightStamps(database, nights, ledger);
     }
     const keys = new Map(nights.map((n) => [n.id, nightStampKey(contextKey, n, stamps.tallies.get(n.id) ?? 'n=0', ledger.touched.get(n.id) ?? '')]));
     const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined);
     cache.retainOnly(new Set(keys.keys()));
-    await keepOnly(request.databaseName, new Set(keys.keys()));
+    await kept.keepOnly(new Set(keys.keys()));
     const apriori = { wireSigmaS: DEFAULT_JOINT_MODEL.wireSigmaS, readingSigmaArcsec: DEFAULT_JOINT_MODEL.readingSigmaArcsec };
     control.reportProgress(0, stale.length);
     for (let start = 0; start < stale.length; start += NIGHT_QUALITY_CHUNK) {
@@ -103,11 +104,12 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
         site: sites[0], instruments, events, stars, nights: chunk, transits,
       }, { timeScale, apriori, keys });
       for (const result of results) cache.set(result);
-      await keepQualities(request.databaseName, results);
+      await kept.keep(results);
       control.reportProgress(Math.min(stale.length, start + chunk.length), stale.length);
     }
     return { kind: 'night-quality', reused: nights.length - stale.length, reduced: stale.length, nights: nights.map((n) => cache.get(n.id, keys.get(n.id) ?? '')).filter((q): q is NightQuality => q !== undefined) };
   } finally {
+    kept.close();
     database.close();
   }
 }
