@@ -51,10 +51,14 @@ async function nightsOf(database: ArchiveDatabase, localDate: string, instrument
 export async function planNightListImport(database: ArchiveDatabase, kind: ImportFileKind, fileName: string, nowUtc: string, parsed: ParseResult<NightListRow>): Promise<ImportPlan> {
   const rejected: Rejection[] = [...parsed.rejected];
   const planned = new Map<string, { night: NightRecord; added: NightListEntry[] }>();
+  // A file holds several readings a night: each night (date, instrument) is looked up once.
+  const nightsByKey = new Map<string, NightRecord[]>();
   let duplicateCount = 0;
   for (const row of parsed.rows) {
     const localDate = dateText(row.nightDateMjd);
-    const nights = await nightsOf(database, localDate, row.instrumentId);
+    const lookup = `${localDate}\u0000${row.instrumentId ?? ''}`;
+    let nights = nightsByKey.get(lookup);
+    if (nights === undefined) nightsByKey.set(lookup, (nights = await nightsOf(database, localDate, row.instrumentId)));
     const where = row.instrumentId === null ? 'of any instrument' : `of instrument ${row.instrumentId}`;
     if (nights.length === 0) {
       rejected.push({ row: row.row, line: row.line, column: 'nightDate', reason: `the archive has no night ${localDate} ${where}; import that night's transit log first` });
