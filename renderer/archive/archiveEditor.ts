@@ -1,4 +1,5 @@
 import type { Table } from 'dexie';
+import { getTransit, removeTransitsOfNights, replaceTransits } from '../store/transitGroups.ts';
 import type { InstrumentEventRecord, TransitRecord } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
@@ -6,6 +7,17 @@ import { recountNightTallies } from '../store/nightTallies.ts';
 import { auditKey, type AuditEntry, type EditedTable } from './auditTrail.ts';
 
 type EditedRow = TransitRecord | InstrumentEventRecord;
+
+/** How the editor reads and writes one table's rows; `like` is a version of the row (it names a transit's night). */
+interface EditedRows {
+  readonly scope: readonly Table[];
+  get(id: string, like: EditedRow): Promise<EditedRow | undefined>;
+  put(row: EditedRow): Promise<void>;
+  delete(row: EditedRow): Promise<void>;
+}
+
+/** What names a transit to the editor: its id and its night (transits are found in their night). */
+export type TransitKey = Pick<TransitRecord, 'id' | 'nightId'>;
 
 /** One change the editor made and can take back: the row before (null: created) and after. */
 export interface EditStep {
@@ -38,15 +50,15 @@ export class ArchiveEditor {
     return this.#undoStack;
   }
 
-  /** Marks a transit rejected by the user (true) or restores it (false). */
-  async setTransitRejected(transitId: string, userRejected: boolean, description: string): Promise<TransitRecord> {
+  /** Marks a transit rejected by the user (true) or restores it (false); `transit` names it and its night. */
+  async setTransitRejected(transit: TransitKey, userRejected: boolean, description: string): Promise<TransitRecord> {
     const verb = userRejected ? 'rejected' : 'restored';
-    return this.#changeTransit(transitId, { userRejected }, `${verb} ${description}`);
+    return this.#changeTransit(transit, { userRejected }, `${verb} ${description}`);
   }
 
   /** Replaces a transit's note. */
-  async setTransitNote(transitId: string, note: string, description: string): Promise<TransitRecord> {
-    return this.#changeTransit(transitId, { note }, `changed the note of ${description} to "${note}"`);
+  async setTransitNote(transit: TransitKey, note: string, description: string): Promise<TransitRecord> {
+    return this.#changeTransit(transit, { note }, `changed the note of ${description} to "${note}"`);
   }
 
   /** Adds an instrument event (validated beforehand by parseEventForm). */
@@ -61,11 +73,11 @@ export class ArchiveEditor {
     if (step === undefined) return null;
     const editor = this.#requireEditor();
     const now = nowUtcIso();
-    const table = this.#table(step.table);
-    await this.#database.transaction('rw', [table, this.#database.settings, ...this.#talliesScope(step.table)], async () => {
-      const current = await table.get(step.recordId);
+    const table = this.#rows(step.table);
+    await this.#database.transaction('rw', [...table.scope, this.#database.settings], async () => {
+      const current = await table.get(step.recordId, step.after);
       this.#checkUnchanged(step, current ?? null, step.after);
-      if (step.before === null) await table.delete(step.recordId);
+      if (step.before === null) await table.delete(step.after);
       // The row comes back exactly, stamp included, so an older step on the same row still matches.
       else await table.put(step.before);
       await this.#keepTalliesTrue(step);
@@ -79,19 +91,19 @@ export class ArchiveEditor {
     return step;
   }
 
-  async #changeTransit(transitId: string, change: Partial<Pick<TransitRecord, 'userRejected' | 'note'>>, summary: string): Promise<TransitRecord> {
-    const before = await this.#database.transits.get(transitId);
-    if (before === undefined) throw new Error(`transit ${transitId} is not in the archive (removed meanwhile?): reload the night`);
+  async #changeTransit(transit: TransitKey, change: Partial<Pick<TransitRecord, 'userRejected' | 'note'>>, summary: string): Promise<TransitRecord> {
+    const before = await getTransit(this.#database, transit.nightId, transit.id);
+    if (before === undefined) throw new Error(`transit ${transit.id} is not in the archive (removed meanwhile?): reload the night`);
     const after: TransitRecord = { ...before, ...change, updatedUtc: nowUtcIso() };
-    await this.#commit({ table: 'transits', recordId: transitId, before, after, summary }, before);
+    await this.#commit({ table: 'transits', recordId: transit.id, before, after, summary }, before);
     return after;
   }
 
   async #commit(step: EditStep, expected: EditedRow | null): Promise<void> {
     const editor = this.#requireEditor();
-    const table = this.#table(step.table);
-    await this.#database.transaction('rw', [table, this.#database.settings, ...this.#talliesScope(step.table)], async () => {
-      const current = await table.get(step.recordId);
+    const table = this.#rows(step.table);
+    await this.#database.transaction('rw', [...table.scope, this.#database.settings], async () => {
+      const current = await table.get(step.recordId, step.after);
       this.#checkUnchanged(step, current ?? null, expected);
       await table.put(step.after);
       await this.#keepTalliesTrue(step);
@@ -118,10 +130,6 @@ export class ArchiveEditor {
     return name;
   }
 
-  /** A transit edit also rewrites its night's tally (schema v3), in the same transaction. */
-  #talliesScope(name: EditedTable) {
-    return name === 'transits' ? [this.#database.transits, this.#database.nights, this.#database.nightTallies] : [];
-  }
 
   async #keepTalliesTrue(step: EditStep): Promise<void> {
     if (step.table !== 'transits') return;
@@ -129,8 +137,26 @@ export class ArchiveEditor {
     await recountNightTallies(this.#database, nights);
   }
 
-  #table(name: EditedTable): Table<EditedRow, string> {
-    // Both tables hold rows keyed by a string id; the union type is what the editor writes.
-    return (name === 'transits' ? this.#database.transits : this.#database.instrumentEvents) as unknown as Table<EditedRow, string>;
+  /**
+   * Transits are stored in groups (transitGroups.ts) and found in their night; a transit edit also
+   * rewrites its night's tally (schema v3), so its scope holds nights and tallies too.
+   */
+  #rows(name: EditedTable): EditedRows {
+    const database = this.#database;
+    if (name === 'transits') {
+      return {
+        scope: [database.transitGroups, database.nights, database.nightTallies],
+        get: (id, like) => getTransit(database, (like as TransitRecord).nightId, id),
+        put: (row) => replaceTransits(database, [row as TransitRecord]),
+        delete: async (row) => void await removeTransitsOfNights(database, [(row as TransitRecord).nightId], (t) => t.id === row.id),
+      };
+    }
+    const table = database.instrumentEvents as unknown as Table<EditedRow, string>;
+    return {
+      scope: [table],
+      get: (id) => table.get(id),
+      put: async (row) => void await table.put(row),
+      delete: (row) => table.delete(row.id),
+    };
   }
 }

@@ -4,6 +4,7 @@ import type {
 } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { readNightTallies } from '../store/nightTallies.ts';
+import { transitCountsByStar, transitsOfNight } from '../store/transitGroups.ts';
 
 /** What the overview needs of a night: its id, local date and instrument, and how many transits it holds. */
 export interface OverviewNight {
@@ -59,12 +60,11 @@ export interface NightDetail {
   readonly instrument: InstrumentRecord | null;
 }
 
-/** Reads one night through the `nightId` index; null if the night is not in the archive. */
+/** Reads one night through the transit groups' `nightIds` index; null if the night is not in the archive. */
 export async function loadNightDetail(database: ArchiveDatabase, nightId: string): Promise<NightDetail | null> {
   const night = await database.nights.get(nightId);
   if (night === undefined) return null;
-  const rows = await database.transits.where('nightId').equals(nightId).toArray();
-  const transits = rows.filter((row) => row.visibility === 'visible').sort((a, b) => a.utcMjd - b.utcMjd);
+  const transits = (await transitsOfNight(database, nightId)).filter((row) => row.visibility === 'visible');
   const starIds = [...new Set(transits.map((row) => row.starId))];
   const stars = await database.stars.bulkGet(starIds);
   const instrument = (await database.instruments.get(night.instrumentId)) ?? null;
@@ -80,13 +80,11 @@ export interface StarSummary {
   readonly transitCount: number;
 }
 
-/** The visible stars by catalogue id, each counted through the `[starId+utcMjd]` index. */
+/** The visible stars by catalogue id, each with its stored transits counted over the transit groups. */
 export async function loadStarProgramme(database: ArchiveDatabase): Promise<StarSummary[]> {
   const stars = (await database.stars.orderBy('catalogueId').toArray()).filter((star) => star.visibility === 'visible');
-  const counts = await Promise.all(
-    stars.map((star) => database.transits.where('[starId+utcMjd]').between([star.id, Dexie.minKey], [star.id, Dexie.maxKey]).count()),
-  );
-  return stars.map((star, index) => ({ star, transitCount: counts[index] }));
+  const counts = await transitCountsByStar(database);
+  return stars.map((star) => ({ star, transitCount: counts.get(star.id) ?? 0 }));
 }
 
 /** An instrument with its events in time order. */

@@ -83,7 +83,7 @@ export class ArchiveViewState {
 
   async setRejected(transit: TransitRecord, rejected: boolean): Promise<void> {
     await this.#run(async () => {
-      await this.#editor.setTransitRejected(transit.id, rejected, this.describeTransit(transit));
+      await this.#editor.setTransitRejected(transit, rejected, this.describeTransit(transit));
       return `${rejected ? 'Rejected' : 'Restored'} ${this.describeTransit(transit)}.`;
     });
   }
@@ -91,7 +91,7 @@ export class ArchiveViewState {
   async setNote(transit: TransitRecord, note: string): Promise<void> {
     if (note === transit.note) return;
     await this.#run(async () => {
-      await this.#editor.setTransitNote(transit.id, note, this.describeTransit(transit));
+      await this.#editor.setTransitNote(transit, note, this.describeTransit(transit));
       return `Saved the note of ${this.describeTransit(transit)}.`;
     });
   }

@@ -1,6 +1,7 @@
 import type { NightRecord } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { readNightTallies, type NightTallyRecord } from '../store/nightTallies.ts';
+import { transitsOfImport } from '../store/transitGroups.ts';
 import { AUDIT_KEY_PREFIX, type AuditEntry } from './auditTrail.ts';
 import { fnv1a64 } from './nightQualityKey.ts';
 
@@ -70,7 +71,7 @@ const importSignature = (row: { status: string; finishedUtc: string | null }) =>
  * transits in Chromium.
  */
 export async function readNightStamps(database: ArchiveDatabase, nights: readonly NightRecord[], ledger: NightChangeLedger): Promise<NightStamps> {
-  return database.transaction('r', [database.transits, database.settings, database.imports, database.nightTallies], async () => {
+  return database.transaction('r', [database.transitGroups, database.settings, database.imports, database.nightTallies], async () => {
     const tallyOf = new Map((await readNightTallies(database)).map((tally) => [tally.nightId, tally]));
     const tallies = new Map(nights.map((night) => [night.id, tallySignature(tallyOf.get(night.id))]));
     const imports = await database.imports.toArray();
@@ -99,7 +100,7 @@ export async function readNightStamps(database: ArchiveDatabase, nights: readonl
       const signature = importSignature(row);
       if (ledger.importsSeen.get(row.id) === signature) continue;
       ledger.importsSeen.set(row.id, signature);
-      const touchedNights = new Set((await database.transits.where('importId').equals(row.id).toArray()).map((t) => t.nightId));
+      const touchedNights = new Set((await transitsOfImport(database, row.id)).map((t) => t.nightId));
       for (const nightId of touchedNights) ledger.touched.set(nightId, `import#${++ledger.changes}`);
     }
     return { tallies, rewritten: false };

@@ -9,10 +9,12 @@ import { UNCONTROLLED } from '../../core/task/task-control.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
 import { countArchiveRows, restoreBundle, verifyBundle } from '../exchange/bundleRestore.ts';
 import { recountNightTallies } from '../store/nightTallies.ts';
+import { TRANSITS } from '../store/archiveTables.ts';
+import { removeTransitsOfImport } from '../store/transitGroups.ts';
 
 export const DEMO_IMPORT_ID = 'demo-archive';
 export const DEMO_SETTING_KEY = 'demoArchive';
-/** The tables whose rows the demo fills (all carry an `importId` index). */
+/** The tables whose rows the demo fills (all carry an `importId` index; transits through their groups'). */
 export const DEMO_TABLES = ['sites', 'instruments', 'instrumentEvents', 'stars', 'nights', 'transits'] as const;
 
 export type DemoState = { readonly state: 'loaded' | 'skipped' | 'removed'; readonly whenUtc: string };
@@ -48,10 +50,12 @@ export async function loadDemoIfFirstStart(
 /** Removes every row the demo wrote, in one transaction, and remembers not to load it again. */
 export async function removeDemoArchive(database: ArchiveDatabase, nowUtc: string): Promise<number> {
   let removed = 0;
-  const tables = DEMO_TABLES.map((name) => database.table(name));
-  await database.transaction('rw', [...tables, database.settings, database.nightTallies], async () => {
+  const tables = DEMO_TABLES.filter((name) => name !== TRANSITS).map((name) => database.table(name));
+  await database.transaction('rw', [...tables, database.transitGroups, database.settings, database.nightTallies], async () => {
     // Nights the demo's transits were in: a user's own transit logged into a demo night keeps its tally.
-    const touchedNights = (await database.transits.where('importId').equals(DEMO_IMPORT_ID).toArray()).map((t) => t.nightId);
+    const removedTransits = await removeTransitsOfImport(database, DEMO_IMPORT_ID);
+    const touchedNights = removedTransits.map((t) => t.nightId);
+    removed += removedTransits.length;
     for (const table of tables) removed += await table.where('importId').equals(DEMO_IMPORT_ID).delete();
     await recountNightTallies(database, touchedNights);
     await database.settings.put({ key: DEMO_SETTING_KEY, value: { state: 'removed', whenUtc: nowUtc } satisfies DemoState });

@@ -2,6 +2,7 @@ import { Dexie } from 'dexie';
 import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
 import type { TransitLogRow } from '../../core/formats/transit-log.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
+import { transitsOfStar } from '../store/transitGroups.ts';
 
 /** Same star, culmination and instrument within this many days is the same transit (FORMATS.md). */
 export const DUPLICATE_WINDOW_DAYS = 0.5;
@@ -99,9 +100,9 @@ export async function loadArchivedNeighbours(
   });
   const instrumentIds = [...new Set(rows.map((r) => r.instrumentId ?? defaultInstrumentId).filter((id): id is string => id !== null))];
   const margin = DUPLICATE_WINDOW_DAYS + RANGE_MARGIN_DAYS;
-  return database.transaction('r', [database.transits, database.nights], async () => {
+  return database.transaction('r', [database.transitGroups, database.nights], async () => {
     const [transitLists, nightLists] = await Promise.all([
-      Promise.all(ranges.map(({ starId, range }) => database.transits.where('[starId+utcMjd]').between([starId, range.low - margin], [starId, range.high + margin], true, true).toArray())),
+      Promise.all(ranges.map(({ starId, range }) => transitsOfStar(database, starId, range.low - margin, range.high + margin))),
       Promise.all(instrumentIds.map((id) => database.nights.where('[instrumentId+localDate]').between([id, Dexie.minKey], [id, Dexie.maxKey], true, true).toArray())),
     ]);
     const transitsByStar = new Map<string, TransitRecord[]>();

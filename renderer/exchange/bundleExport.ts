@@ -2,7 +2,7 @@ import { BundleWriter, type ByteSink } from '../../core/archive/bundle-writer.ts
 import { TaskCancelledError, type TaskControl } from '../../core/task/task-control.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
-import { DERIVED_TABLES } from '../store/nightTallies.ts';
+import { archiveTableNames, readTableRows, storedTable } from '../store/archiveTables.ts';
 import { gzipBlocks } from './gzip.ts';
 import type { StageClock } from './stageClock.ts';
 
@@ -19,15 +19,15 @@ export interface ExportedBundle {
 
 /**
  * The whole archive as a gzip-compressed bundle (core/archive/bundle-format.ts), one bundle
- * table per Dexie table under the same name. Every table is read in one read-only transaction, so
+ * table per archive table (archiveTables.ts: the Dexie tables, transits as rows). Every table is read in one read-only transaction, so
  * the bundle is one consistent snapshot; rows still staged by an unfinished import are left
  * out (they are not part of the archive yet), and so are derived tables (DERIVED_TABLES: rebuilt
  * after a restore). Serialising yields to the host every
  * EXPORT_CHUNK_ROWS rows for progress and cancel.
  */
 export async function exportBundle(database: ArchiveDatabase, control: TaskControl, createdUtc: string, producer: string, clock?: StageClock): Promise<ExportedBundle> {
-  const tables = database.tables.filter((t) => !DERIVED_TABLES.includes(t.name));
-  const snapshot = await database.transaction('r', tables, () => Promise.all(tables.map((t) => t.toArray())));
+  const names = archiveTableNames(database);
+  const snapshot = await database.transaction('r', names.map((name) => storedTable(database, name)), () => Promise.all(names.map((name) => readTableRows(database, name))));
   clock?.lap('read');
   const writer = new BundleWriter({ schemaVersion: ARCHIVE_SCHEMA_VERSION, createdUtc, producer });
   // UTF-8 bytes line by line (never the whole bundle as one string: a million rows would pass
@@ -37,10 +37,10 @@ export async function exportBundle(database: ArchiveDatabase, control: TaskContr
   const rowCounts: Record<string, number> = {};
   const total = snapshot.reduce((sum, rows) => sum + rows.length, 0);
   let done = 0;
-  for (const [k, table] of tables.entries()) {
-    blocks.push(encodeUtf8(writer.beginTable(table.name)));
+  for (const [k, name] of names.entries()) {
+    blocks.push(encodeUtf8(writer.beginTable(name)));
     const rows = snapshot[k].filter((row) => (row as { visibility?: string }).visibility !== 'staged');
-    rowCounts[table.name] = rows.length;
+    rowCounts[name] = rows.length;
     for (const row of rows) {
       writer.rowInto(row, blocks);
       if (++done % EXPORT_CHUNK_ROWS === 0) {

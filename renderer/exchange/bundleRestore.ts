@@ -4,7 +4,9 @@ import { decodeUtf8 } from '../../core/formats/utf8.ts';
 import { TaskCancelledError, UNCONTROLLED, type TaskControl } from '../../core/task/task-control.ts';
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
 import { gunzipBytes } from './gzip.ts';
-import { DERIVED_TABLES, talliesFromRows } from '../store/nightTallies.ts';
+import { talliesFromRows } from '../store/nightTallies.ts';
+import { archiveTableNames, countTableRows, TRANSITS, writeTableRows } from '../store/archiveTables.ts';
+import { inGroupingOrder } from '../store/transitGroups.ts';
 import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
 
 /** A bundle read whole and verified (header, every table's row count and SHA-256). */
@@ -25,7 +27,7 @@ const VERIFY_CHUNK_LINES = 5_000;
  */
 export async function verifyBundle(database: ArchiveDatabase, bytes: Uint8Array, control: TaskControl): Promise<VerifiedBundle> {
   const inflated = await gunzipBytes(bytes);
-  const known = new Set(database.tables.map((t) => t.name).filter((name) => !DERIVED_TABLES.includes(name)));
+  const known = new Set(archiveTableNames(database));
   const rows = new Map<string, unknown[]>();
   const reader = new BundleReader((table, row) => {
     let list = rows.get(table);
@@ -100,13 +102,22 @@ function checkSchema(header: BundleHeader): void {
 
 /** Rows in the tables a user would lose by a replace (every table but settings). */
 export async function countArchiveRows(database: ArchiveDatabase): Promise<number> {
-  const counts = await Promise.all(database.tables.filter((t) => t.name !== 'settings' && !DERIVED_TABLES.includes(t.name)).map((t) => t.count()));
+  const counts = await Promise.all(archiveTableNames(database).filter((name) => name !== 'settings').map((name) => countTableRows(database, name)));
   return counts.reduce((a, b) => a + b, 0);
+}
+
+/** Transits are stored in groups without a per-transit key, so a bundle listing one id twice is refused. */
+function requireDistinctTransitIds(transits: readonly TransitRecord[]): void {
+  const seen = new Set<string>();
+  for (const [k, t] of transits.entries()) {
+    if (seen.has(t.id)) throw new BundleError(`the bundle's transits table lists the id "${t.id}" twice (row ${k + 1} of the table); nothing was restored`, null);
+    seen.add(t.id);
+  }
 }
 
 export type RestoreMode = 'into-empty' | 'replace';
 
-/** Rows per bulkPut inside the restore's one transaction. */
+/** Rows per write inside the restore's one transaction (transits: in groups, transitGroups.ts). */
 const RESTORE_CHUNK_ROWS = 10_000;
 
 /**
@@ -134,11 +145,13 @@ export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedB
     }
     // Chunked only for progress and cancel: every chunk is in the one transaction. Never await
     // the host in here (a timer would let IndexedDB commit early); cancel arrives meanwhile.
-    for (const [name, rows] of bundle.rows) {
+    requireDistinctTransitIds((bundle.rows.get(TRANSITS) ?? []) as readonly TransitRecord[]);
+    for (const [name, asStored] of bundle.rows) {
+      const rows = name === TRANSITS ? inGroupingOrder(asStored as readonly TransitRecord[]) : asStored;
       for (let start = 0; start < rows.length; start += RESTORE_CHUNK_ROWS) {
         if (control.cancellation.isCancelled) throw new TaskCancelledError('the restore', done);
         const chunk = rows.slice(start, start + RESTORE_CHUNK_ROWS) as object[];
-        await database.table(name).bulkPut(chunk);
+        await writeTableRows(database, name, chunk);
         done += chunk.length;
         control.reportProgress(done, total);
       }

@@ -5,12 +5,24 @@ import type { ArchiveDatabase } from '../store/database.ts';
 import { IMPORTABLE_TABLES } from '../store/importStaging.ts';
 import { addToNightTallies, recountNightTallies } from '../store/nightTallies.ts';
 import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
+import { storedTable } from '../store/archiveTables.ts';
+import { addTransits, inGroupingOrder, removeTransitsOfImport, replaceTransits } from '../store/transitGroups.ts';
 
 export type ImportableTableName = (typeof IMPORTABLE_TABLES)[number];
 
-/** The table object itself (`database.transits`), so a test hook that patches it is honoured. */
-function tableOf(database: ArchiveDatabase, name: ImportableTableName): Table {
-  return database[name] as unknown as Table;
+/**
+ * Writes new rows of one table; transits go into groups (transitGroups.ts, whose bulkAdd a test
+ * hook may patch), every other table row by row.
+ */
+async function writeCreated(database: ArchiveDatabase, name: ImportableTableName, rows: readonly object[]): Promise<void> {
+  if (name === 'transits') await addTransits(database, rows as readonly TransitRecord[]);
+  else await (database[name] as unknown as Table).bulkPut(rows as object[]);
+}
+
+/** Replaces stored rows of one table by new versions with the same ids. */
+async function writeUpdated(database: ArchiveDatabase, name: ImportableTableName, rows: readonly object[]): Promise<void> {
+  if (name === 'transits') await replaceTransits(database, rows as readonly TransitRecord[]);
+  else await (database[name] as unknown as Table).bulkPut(rows as object[]);
 }
 
 /**
@@ -69,15 +81,16 @@ export async function writeImport(
   const total = IMPORTABLE_TABLES.reduce((sum, table) => sum + (writes.created[table]?.length ?? 0), 0);
   const rowCounts = countRows(writes);
   try {
-    await database.transaction('rw', [database.imports, database.nightTallies, ...IMPORTABLE_TABLES.map((t) => database.table(t))], async () => {
+    await database.transaction('rw', [database.imports, database.nightTallies, ...IMPORTABLE_TABLES.map((t) => storedTable(database, t))], async () => {
       await requireStaging(database, importId);
       let done = 0;
       for (const table of IMPORTABLE_TABLES) {
-        const rows = writes.created[table] ?? [];
+        const asPlanned = writes.created[table] ?? [];
+        const rows = table === 'transits' ? inGroupingOrder(asPlanned as readonly TransitRecord[]) : asPlanned;
         for (let start = 0; start < rows.length; start += chunkRows) {
           if (control.cancellation.isCancelled) throw new TaskCancelledError('the import', done);
           const chunk = rows.slice(start, start + chunkRows).map((row) => ({ ...row, visibility: 'visible', importId }));
-          await tableOf(database, table).bulkPut(chunk);
+          await writeCreated(database, table, chunk);
           done += chunk.length;
           control.reportProgress(done, total);
           if ((options.chunkPauseMs ?? 0) > 0) await holdOpen(database, importId, options.chunkPauseMs as number);
@@ -86,7 +99,7 @@ export async function writeImport(
       if (control.cancellation.isCancelled) throw new TaskCancelledError('the import', total);
       for (const table of IMPORTABLE_TABLES) {
         const rows = (writes.updated[table] ?? []).map((row) => ({ ...row, visibility: 'visible', importId }));
-        if (rows.length > 0) await tableOf(database, table).bulkPut(rows);
+        if (rows.length > 0) await writeUpdated(database, table, rows);
       }
       await keepTalliesTrue(database, writes);
       await database.imports.update(importId, { rowCounts, status: 'committed', finishedUtc: now() });
@@ -133,10 +146,11 @@ function countRows(writes: ImportWrites): Record<string, number> {
  * transaction may hold some) and marks it abandoned; committed rows are never touched.
  */
 export async function abandonImport(database: ArchiveDatabase, importId: string, finishedUtc: string): Promise<void> {
-  await database.transaction('rw', [database.imports, ...IMPORTABLE_TABLES.map((t) => database.table(t))], async () => {
+  await database.transaction('rw', [database.imports, ...IMPORTABLE_TABLES.map((t) => storedTable(database, t))], async () => {
     if ((await database.imports.get(importId))?.status !== 'staging') return; // committed or already abandoned: leave it
     for (const table of IMPORTABLE_TABLES) {
-      await database.table(table).where('importId').equals(importId).and((row) => row.visibility === 'staged').delete();
+      if (table === 'transits') await removeTransitsOfImport(database, importId, (t) => t.visibility === 'staged');
+      else await database.table(table).where('importId').equals(importId).and((row) => row.visibility === 'staged').delete();
     }
     await database.imports.update(importId, { status: 'abandoned', finishedUtc });
   });

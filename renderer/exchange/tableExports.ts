@@ -6,6 +6,7 @@ import { SOLVE_STAR_COLUMNS, solveStarsOf } from '../../core/exchange-formats/so
 import { writeVoTable } from '../../core/exchange-formats/votable-writer.ts';
 import { encodeUtf8 } from '../../core/text/utf8-encode.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
+import { readTableRows, storedTable } from '../store/archiveTables.ts';
 import { TaskCancelledError, type TaskControl } from '../../core/task/task-control.ts';
 
 const CSV: FileFilter = { label: 'CSV (comma-separated values)', extensions: ['csv'] };
@@ -27,7 +28,7 @@ export const TABLE_EXPORT_CHUNK_ROWS = 20_000;
  * (on a refused cell the whole table is written again to name the row as a single pass would).
  */
 export async function tableCsvBytes<K extends CsvTableName>(database: ArchiveDatabase, table: K, control: TaskControl): Promise<{ bytes: Uint8Array; rows: number }> {
-  const all = await database.transaction('r', database.table(table), () => database.table(table).toArray());
+  const all = await database.transaction('r', storedTable(database, table), () => readTableRows(database, table));
   const rows = all.filter((row: { visibility?: string }) => row.visibility !== 'staged') as unknown as CsvTableRows[K];
   const headerLength = archiveTableCsv(table, [] as unknown as CsvTableRows[K]).length;
   const parts: string[] = [];

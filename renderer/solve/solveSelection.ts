@@ -1,5 +1,6 @@
 import type { ArchiveContent } from '../../core/archive-folder/archive-folder.ts';
 import type { ArchiveDatabase } from '../store/database.ts';
+import { allTransits } from '../store/transitGroups.ts';
 import { keyedByCatalogueId } from '../store/keyedByCatalogueId.ts';
 
 /**
@@ -36,7 +37,7 @@ export async function archiveContentFromStore(database: ArchiveDatabase, selecti
   const stars = visible(await database.stars.toArray()).filter((s) => keepStar(s.id));
   const nights = visible(await database.nights.toArray()).filter((n) => keepInstrument(n.instrumentId) && inSpan(n.localDate));
   const nightIds = new Set(nights.map((n) => n.id));
-  const transits = visible(await database.transits.toArray()).filter((t) => nightIds.has(t.nightId) && keepStar(t.starId));
+  const transits = visible(await allTransits(database)).filter((t) => nightIds.has(t.nightId) && keepStar(t.starId));
   if (transits.length === 0) {
     throw new Error('The chosen stars, instruments and dates leave no transit to solve; widen the selection.');
   }

@@ -9,18 +9,19 @@ import type {
   ReductionRecord,
   SiteRecord,
   StarRecord,
-  TransitRecord,
 } from '../../core/archive/records.ts';
 import { SCHEMA_V1 } from './schemaV1.ts';
 import { SCHEMA_V2, type SettingRecord } from './schemaV2.ts';
 import { SCHEMA_V3 } from './schemaV3.ts';
+import { SCHEMA_V4 } from './schemaV4.ts';
 import { upgradeToV3, type NightTallyRecord } from './nightTallies.ts';
+import { upgradeToV4, type TransitGroupRecord } from './transitGroups.ts';
 
 /** Name of the IndexedDB database that holds the user's archive in this browser profile. */
 export const ARCHIVE_DATABASE_NAME = 'meridian-ledger-archive';
 
 /** The newest schema version this build knows; opening a newer database fails with a VersionError. */
-export const ARCHIVE_SCHEMA_VERSION = 3;
+export const ARCHIVE_SCHEMA_VERSION = 4;
 
 /**
  * The archive database (DESIGN.md §3), one typed table per record kind.
@@ -36,7 +37,8 @@ export class ArchiveDatabase extends Dexie {
   instrumentEvents!: EntityTable<InstrumentEventRecord, 'id'>;
   stars!: EntityTable<StarRecord, 'id'>;
   nights!: EntityTable<NightRecord, 'id'>;
-  transits!: EntityTable<TransitRecord, 'id'>;
+  /** Schema v4: the transits, in groups; read and write them only through transitGroups.ts. */
+  transitGroups!: EntityTable<TransitGroupRecord, 'id'>;
   earthOrientation!: EntityTable<EarthOrientationRecord, 'mjd'>;
   leapSeconds!: EntityTable<LeapSecondRecord, 'mjd'>;
   reductions!: EntityTable<ReductionRecord, 'id'>;
@@ -51,5 +53,6 @@ export class ArchiveDatabase extends Dexie {
     this.version(1).stores(SCHEMA_V1);
     this.version(2).stores(SCHEMA_V2);
     this.version(3).stores(SCHEMA_V3).upgrade(upgradeToV3);
+    this.version(4).stores(SCHEMA_V4).upgrade(upgradeToV4);
   }
 }

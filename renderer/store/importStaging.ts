@@ -1,5 +1,7 @@
 import type { ArchiveDatabase } from './database.ts';
 import { recountNightTallies } from './nightTallies.ts';
+import { storedTable, TRANSITS } from './archiveTables.ts';
+import { changeTransitsOfImport, removeTransitsOfImport, transitsOfImport } from './transitGroups.ts';
 
 /** The tables whose rows an import may write; each carries `visibility` and `importId`. */
 export const IMPORTABLE_TABLES = [
@@ -12,7 +14,12 @@ export const IMPORTABLE_TABLES = [
 ] as const;
 
 function importableTables(database: ArchiveDatabase) {
-  return IMPORTABLE_TABLES.map((name) => database.table(name));
+  return IMPORTABLE_TABLES.map((name) => storedTable(database, name));
+}
+
+/** The importable tables other than transits (whose rows sit in groups: transitGroups.ts). */
+function rowTables(database: ArchiveDatabase) {
+  return IMPORTABLE_TABLES.filter((name) => name !== TRANSITS).map((name) => database.table(name));
 }
 
 /**
@@ -29,10 +36,11 @@ export async function commitImport(database: ArchiveDatabase, importId: string, 
     if (journal.status !== 'staging') {
       throw new Error(`commitImport: import "${importId}" is ${journal.status}, not staging; it cannot be committed.`);
     }
-    const touchedNights = (await database.transits.where('importId').equals(importId).toArray()).map((t) => t.nightId);
-    for (const table of importableTables(database)) {
+    const touchedNights = (await transitsOfImport(database, importId)).map((t) => t.nightId);
+    for (const table of rowTables(database)) {
       await table.where('importId').equals(importId).modify({ visibility: 'visible' });
     }
+    await changeTransitsOfImport(database, importId, (t) => ({ ...t, visibility: 'visible' }));
     await recountNightTallies(database, touchedNights);
     await database.imports.update(importId, { status: 'committed', finishedUtc });
   });
@@ -47,9 +55,10 @@ export async function sweepInterruptedImports(database: ArchiveDatabase, finishe
   return database.transaction('rw', [database.imports, ...importableTables(database)], async () => {
     const interrupted = await database.imports.where('status').equals('staging').primaryKeys();
     for (const importId of interrupted) {
-      for (const table of importableTables(database)) {
+      for (const table of rowTables(database)) {
         await table.where('importId').equals(importId).and((row) => row.visibility === 'staged').delete();
       }
+      await removeTransitsOfImport(database, importId, (t) => t.visibility === 'staged');
       await database.imports.update(importId, { status: 'abandoned', finishedUtc });
     }
     return interrupted.length;

@@ -1,6 +1,7 @@
 import type { Transaction } from 'dexie';
 import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from './database.ts';
+import { allTransits, transitsOfNight } from './transitGroups.ts';
 
 /**
  * What the archive knows about one night without reading its transits (schema v3, derived).
@@ -66,7 +67,7 @@ export function talliesFromRows(nights: Iterable<NightKey>, transits: Iterable<T
 
 /**
  * Adds newly written transits to the stored tallies. Call inside the transaction that wrote them,
- * with `transits`, `nights` and `nightTallies` in its scope; `newNights` are nights written in the
+ * with `transitGroups`, `nights` and `nightTallies` in its scope; `newNights` are nights written in the
  * same transaction (looked up first, so no read is needed for them). Only for rows that did not
  * exist before (an import's created rows): a replaced row must go through recountNightTallies.
  */
@@ -86,11 +87,11 @@ export async function addToNightTallies(database: ArchiveDatabase, transits: rea
 /**
  * Recomputes the tallies of a few nights from their stored transits (an edit, a live entry, an
  * undo, a removal); a night left without visible transits loses its tally. Call inside the
- * transaction that changed them, with `transits`, `nights` and `nightTallies` in its scope.
+ * transaction that changed them, with `transitGroups`, `nights` and `nightTallies` in its scope.
  */
 export async function recountNightTallies(database: ArchiveDatabase, nightIds: Iterable<string>): Promise<void> {
   for (const nightId of new Set(nightIds)) {
-    const [night, transits] = await Promise.all([database.nights.get(nightId), database.transits.where('nightId').equals(nightId).toArray()]);
+    const [night, transits] = await Promise.all([database.nights.get(nightId), transitsOfNight(database, nightId)]);
     const [tally] = night === undefined ? [] : talliesFromRows([night], transits);
     if (tally === undefined) await database.nightTallies.delete(nightId);
     else await database.nightTallies.put(tally);
@@ -99,8 +100,8 @@ export async function recountNightTallies(database: ArchiveDatabase, nightIds: I
 
 /** Throws away every tally and computes them all again from the stored nights and transits (tests, repairs). */
 export async function rebuildNightTallies(database: ArchiveDatabase): Promise<void> {
-  await database.transaction('rw', [database.nights, database.transits, database.nightTallies], async () => {
-    const [nights, transits] = await Promise.all([database.nights.toArray(), database.transits.toArray()]);
+  await database.transaction('rw', [database.nights, database.transitGroups, database.nightTallies], async () => {
+    const [nights, transits] = await Promise.all([database.nights.toArray(), allTransits(database)]);
     await database.nightTallies.clear();
     await database.nightTallies.bulkAdd(talliesFromRows(nights, transits));
   });

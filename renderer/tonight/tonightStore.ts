@@ -2,6 +2,7 @@ import type { ClockComparison, NightRecord, TransitRecord, WeatherReading } from
 import type { ArchiveDatabase } from '../store/database.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
 import { recountNightTallies } from '../store/nightTallies.ts';
+import { addTransit as storeTransit, transitsOfNight } from '../store/transitGroups.ts';
 
 /** Tonight's night record of an instrument, or undefined before the first entry. */
 export async function findNight(database: ArchiveDatabase, instrumentId: string, localDate: string): Promise<NightRecord | undefined> {
@@ -11,8 +12,7 @@ export async function findNight(database: ArchiveDatabase, instrumentId: string,
 
 /** The transits logged on a night, in time order. */
 export async function nightTransits(database: ArchiveDatabase, nightId: string): Promise<TransitRecord[]> {
-  const rows = await database.transits.where('nightId').equals(nightId).toArray();
-  return rows.filter((row) => row.visibility === 'visible').sort((a, b) => a.utcMjd - b.utcMjd);
+  return (await transitsOfNight(database, nightId)).filter((row) => row.visibility === 'visible');
 }
 
 /** Finds tonight's night or creates it (inside one transaction, so two quick entries make one night). */
@@ -40,8 +40,8 @@ export async function addTransit(database: ArchiveDatabase, night: NightRecord, 
     id: crypto.randomUUID(), nightId: night.id, instrumentId: night.instrumentId, ...draft, weather: null, weight: 1, userRejected: false,
     flaggedOutlier: false, visibility: 'visible', createdUtc: now, updatedUtc: now,
   };
-  await database.transaction('rw', [database.transits, database.nights, database.nightTallies], async () => {
-    await database.transits.add(record);
+  await database.transaction('rw', [database.transitGroups, database.nights, database.nightTallies], async () => {
+    await storeTransit(database, record);
     await recountNightTallies(database, [record.nightId]);
   });
   return record;

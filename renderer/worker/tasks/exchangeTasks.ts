@@ -17,7 +17,7 @@ import type { CsvTableName } from '../../../core/exchange-formats/archive-table-
 
 /** Hooks for the end-to-end tests only; the view sends them only when the page has `?test-hooks`. */
 export interface ExchangeTestHooks {
-  /** Throw a QuotaExceededError DOMException from the n-th transits.bulkPut (1-based). */
+  /** Throw a QuotaExceededError DOMException from the n-th write of new transits (transitGroups.bulkAdd, 1-based). */
   readonly quotaOnTransitWrite?: number;
   /** Hold the import's transaction open this long at every chunk boundary, so a test can interrupt it mid-write. */
   readonly chunkDelayMs?: number;
@@ -56,9 +56,9 @@ export function isExchangeKind(kind: string): kind is ExchangeRequest['kind'] {
 function installTestHooks(database: ArchiveDatabase, hooks: ExchangeTestHooks | null): WriteImportOptions {
   if (hooks === null) return {};
   if (hooks.quotaOnTransitWrite !== undefined) {
-    const original = database.transits.bulkPut.bind(database.transits);
+    const original = database.transitGroups.bulkAdd.bind(database.transitGroups);
     let calls = 0;
-    database.transits.bulkPut = ((...args: Parameters<typeof original>) => {
+    database.transitGroups.bulkAdd = ((...args: Parameters<typeof original>) => {
       calls++;
       if (calls === hooks.quotaOnTransitWrite) throw new DOMException('The quota has been exceeded (test hook).', 'QuotaExceededError');
       return original(...args);

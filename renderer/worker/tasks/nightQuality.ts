@@ -7,6 +7,7 @@ import { archiveContextKey, fnv1a64 } from '../../archive/nightQualityKey.ts';
 import { NightChangeLedger, nightStampKey, readNightStamps } from '../../archive/nightQualityStamps.ts';
 import { reduceStoredNights } from '../../archive/reduceStoredNights.ts';
 import { ArchiveDatabase } from '../../store/database.ts';
+import { transitsOfNights } from '../../store/transitGroups.ts';
 import { archiveTimeScale } from './archiveTimeScale.ts';
 import { KeptNightQualities } from './keptNightQualities.ts';
 
@@ -98,8 +99,8 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
       await control.yieldToHost();
       if (control.cancellation.isCancelled) throw new TaskCancelledError('the nightly reductions of the overview', start);
       const chunk = stale.slice(start, start + NIGHT_QUALITY_CHUNK);
-      // Only the stale nights' transits are read, through the nightId index.
-      const transits = visible(await database.transits.where('nightId').anyOf(chunk.map((n) => n.id)).toArray());
+      // Only the stale nights' transits are read, through the transit groups' nightIds index.
+      const transits = visible(await transitsOfNights(database, chunk.map((n) => n.id)));
       const results = await reduceStoredNights({
         site: sites[0], instruments, events, stars, nights: chunk, transits,
       }, { timeScale, apriori, keys });
