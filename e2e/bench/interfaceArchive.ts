@@ -1,7 +1,9 @@
 // Set-up for e2e/bench/interface.bench.ts: a large archive written straight into the app's
 // IndexedDB, outside the timed parts. The site, instrument and stars go through the app's own
 // import (Exchange view); one imported night and transit are then the templates every written
-// record is cloned from, so the rows have exactly the shape the app's Dexie schema stores.
+// record is cloned from, so the rows have exactly the shape the app's Dexie schema stores. Transits
+// are written as the app stores them since schema v4: groups of up to 64 transits of one star
+// (renderer/store/transitGroups.ts, whose records this file builds again: no renderer code runs here).
 // Invented scenario: no real site, instrument or star.
 import type { Page } from '@playwright/test';
 
@@ -55,7 +57,10 @@ export async function fillArchive(page: Page, base: string, transits: number): P
     });
     type Row = Record<string, unknown> & { id: string };
     const [night] = await all<Row>('nights');
-    const [transit] = await all<Row & { clockMjd: number; utcMjd: number; wireClockMjd: number[] }>('transits');
+    type Transit = Row & { nightId: string; starId: string; clockMjd: number; utcMjd: number; wireClockMjd: number[]; importId?: string };
+    // The one transit the template import stored, alone in its group.
+    const [templateGroup] = await all<{ transits: Transit[] }>('transitGroups');
+    const transit = templateGroup?.transits[0];
     const stars = (await all<Row & { catalogueId: string }>('stars')).sort((a, b) => a.catalogueId.localeCompare(b.catalogueId));
     if (night === undefined || transit === undefined || stars.length !== starCount) throw new Error('bench set-up: the template night, transit or stars were not imported');
     const wireOffsets = transit.wireClockMjd.map((w) => w - transit.clockMjd);
@@ -70,12 +75,16 @@ export async function fillArchive(page: Page, base: string, transits: number): P
       tx.onerror = () => reject(tx.error);
     });
     let written = 0;
-    const NIGHTS_PER_CHUNK = 200;
+    // A star has one transit a night, so its consecutive nights' transits are already in time order:
+    // groups of GROUP_MAX_TRANSITS nights (63 days, inside the 400-day span), the cut groupTransits
+    // makes. A chunk is a whole number of groups, so no group is cut at a chunk's edge.
+    const GROUP_MAX_TRANSITS = 64;
+    const NIGHTS_PER_CHUNK = 4 * GROUP_MAX_TRANSITS;
     // The derived per-night tallies (schema v3, renderer/store/nightTallies.ts) as the app's own writers keep them.
     const keepsTallies = db.objectStoreNames.contains('nightTallies');
     for (let first = 0; first < nights; first += NIGHTS_PER_CHUNK) {
       const nightRows: Row[] = [];
-      const transitRows: Row[] = [];
+      const transitRows: Transit[] = [];
       const tallyRows: Record<string, unknown>[] = [];
       for (let k = first; k < Math.min(nights, first + NIGHTS_PER_CHUNK); k++) {
         const localDate = new Date(Date.UTC(1999, 0, 1 + k)).toISOString().slice(0, 10);
@@ -88,14 +97,30 @@ export async function fillArchive(page: Page, base: string, transits: number): P
           transitRows.push({ ...transit, id: `bench-transit-${localDate}-${s}`, nightId, starId: stars[s].id, clockMjd, utcMjd: clockMjd + utcOffset,
             wireClockMjd: wireOffsets.map((o) => clockMjd + o), zenithReadings: [12 + (s % 7) * 0.1] });
         }
-        const ofNight = transitRows.slice(firstOfNight) as unknown as { utcMjd: number }[];
+        const ofNight = transitRows.slice(firstOfNight);
         if (ofNight.length > 0) {
           tallyRows.push({ nightId, instrumentId: night.instrumentId, localDate, transitCount: ofNight.length, rejectedCount: 0,
             firstUtcMjd: Math.min(...ofNight.map((t) => t.utcMjd)), lastUtcMjd: Math.max(...ofNight.map((t) => t.utcMjd)) });
         }
       }
+      const byStar = new Map<string, Transit[]>();
+      for (const t of transitRows) {
+        const list = byStar.get(t.starId);
+        if (list === undefined) byStar.set(t.starId, [t]);
+        else list.push(t);
+      }
+      const groupRows: Row[] = [];
+      for (const [s, star] of stars.entries()) {
+        const list = byStar.get(star.id) ?? [];
+        for (let start = 0; start < list.length; start += GROUP_MAX_TRANSITS) {
+          const members = list.slice(start, start + GROUP_MAX_TRANSITS);
+          groupRows.push({ id: `bench-group-${s}-${(first + start) / GROUP_MAX_TRANSITS}`, starId: star.id, firstUtcMjd: members[0].utcMjd,
+            lastUtcMjd: members[members.length - 1].utcMjd, nightIds: [...new Set(members.map((t) => t.nightId))],
+            importIds: [...new Set(members.flatMap((t) => (typeof t.importId === 'string' ? [t.importId] : [])))], transits: members });
+        }
+      }
       await write('nights', nightRows);
-      await write('transits', transitRows);
+      await write('transitGroups', groupRows);
       if (keepsTallies) await write('nightTallies', tallyRows);
     }
     db.close();

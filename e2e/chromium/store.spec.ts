@@ -82,8 +82,8 @@ test('an archive written by a newer version is refused with advice, and its data
       deletion.onerror = () => reject(deletion.error);
     });
     await new Promise<void>((resolve, reject) => {
-      // Schema version 4 in Dexie's numbering (IndexedDB version 40), with one row in it.
-      const request = indexedDB.open('meridian-ledger-archive', 40);
+      // Schema version 5 in Dexie's numbering (IndexedDB version 50), with one row in it.
+      const request = indexedDB.open('meridian-ledger-archive', 50);
       request.onupgradeneeded = () => request.result.createObjectStore('sites', { keyPath: 'id' }).put({ id: 'future-row' });
       request.onsuccess = () => { request.result.close(); resolve(); };
       request.onerror = () => reject(request.error);
@@ -92,7 +92,7 @@ test('an archive written by a newer version is refused with advice, and its data
   await page.goto(withoutDemo('./#/archive'));
   const banner = page.getByTestId('archive-failure');
   await expect(banner).toContainText('This archive was written by a newer version of Meridian Ledger');
-  await expect(banner).toContainText('schema version 4');
+  await expect(banner).toContainText('schema version 5');
   await expect(banner).toContainText('Nothing in the archive was changed or deleted.');
   await expect(page.getByText('The archive is not open; see the message above.')).toBeVisible();
   await page.screenshot({ path: 'e2e-output/screenshots/day-archive-refused.png' });
@@ -104,5 +104,5 @@ test('an archive written by a newer version is refused with advice, and its data
     };
     request.onerror = () => reject(request.error);
   }));
-  expect(kept).toBe(1 * 1000 + 40); // one row, still at version 40
+  expect(kept).toBe(1 * 1000 + 50); // one row, still at version 50
 });
