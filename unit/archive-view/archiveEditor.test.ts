@@ -5,11 +5,12 @@ import { recentAuditEntries } from '../../renderer/archive/auditTrail.ts';
 import { readEditorName, writeEditorName } from '../../renderer/archive/editorName.ts';
 import type { InstrumentEventRecord } from '../../core/archive/records.ts';
 import { transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows, transitById, updateTransitRow } from '../store/transitRows.ts';
 
 // Invented rows (unit/store/rowFactories.ts); the checks are about the store's behaviour only.
 async function openWithTransits(): Promise<ArchiveDatabase> {
   const database = new ArchiveDatabase(uniqueDatabaseName('editor'));
-  await database.transits.bulkAdd([transitRow('t-1'), transitRow('t-2', { note: 'windy' })]);
+  await putTransitRows(database, [transitRow('t-1'), transitRow('t-2', { note: 'windy' })]);
   return database;
 }
 
@@ -19,16 +20,16 @@ const eventRow = (id: string): InstrumentEventRecord => ({
 });
 
 describe('ArchiveEditor', () => {
-  test('setTransitRejected(id, true) rejects, undo() restores, and both are in the audit trail', async () => {
+  test('setTransitRejected(transit, true) rejects, undo() restores, and both are in the audit trail', async () => {
     const database = await openWithTransits();
     const editor = new ArchiveEditor(database, () => 'R. Vance');
-    await editor.setTransitRejected('t-1', true, 'the transit of Star 1');
-    expect((await database.transits.get('t-1'))?.userRejected).toBe(true);
+    await editor.setTransitRejected({ id: 't-1', nightId: 'night-1' }, true, 'the transit of Star 1');
+    expect((await transitById(database, 't-1'))?.userRejected).toBe(true);
     expect(editor.undoStack).toHaveLength(1);
 
     const undone = await editor.undo();
     expect(undone?.summary).toBe('rejected the transit of Star 1');
-    const restored = await database.transits.get('t-1');
+    const restored = await transitById(database, 't-1');
     expect(restored).toEqual(transitRow('t-1'));
     expect(editor.undoStack).toHaveLength(0);
 
@@ -42,17 +43,17 @@ describe('ArchiveEditor', () => {
   test('undo() is a stack: two edits of one transit and one of another come back in reverse order', async () => {
     const database = await openWithTransits();
     const editor = new ArchiveEditor(database, () => 'R. Vance');
-    await editor.setTransitRejected('t-2', true, 'transit 2');
-    await editor.setTransitNote('t-2', 'cloud at wire 3', 'transit 2');
-    await editor.setTransitRejected('t-1', true, 'transit 1');
+    await editor.setTransitRejected({ id: 't-2', nightId: 'night-1' }, true, 'transit 2');
+    await editor.setTransitNote({ id: 't-2', nightId: 'night-1' }, 'cloud at wire 3', 'transit 2');
+    await editor.setTransitRejected({ id: 't-1', nightId: 'night-1' }, true, 'transit 1');
     await editor.undo();
-    expect((await database.transits.get('t-1'))?.userRejected).toBe(false);
-    expect((await database.transits.get('t-2'))?.note).toBe('cloud at wire 3');
+    expect((await transitById(database, 't-1'))?.userRejected).toBe(false);
+    expect((await transitById(database, 't-2'))?.note).toBe('cloud at wire 3');
     await editor.undo();
-    expect((await database.transits.get('t-2'))?.note).toBe('windy');
-    expect((await database.transits.get('t-2'))?.userRejected).toBe(true);
+    expect((await transitById(database, 't-2'))?.note).toBe('windy');
+    expect((await transitById(database, 't-2'))?.userRejected).toBe(true);
     await editor.undo();
-    expect(await database.transits.get('t-2')).toEqual(transitRow('t-2', { note: 'windy' }));
+    expect(await transitById(database, 't-2')).toEqual(transitRow('t-2', { note: 'windy' }));
     expect(await editor.undo()).toBeNull();
     expect(await recentAuditEntries(database, 100)).toHaveLength(6);
   });
@@ -70,8 +71,8 @@ describe('ArchiveEditor', () => {
   test('an edit without an editor name is refused and changes nothing', async () => {
     const database = await openWithTransits();
     const editor = new ArchiveEditor(database, () => '  ');
-    await expect(editor.setTransitRejected('t-1', true, 'transit 1')).rejects.toThrow(/no editor name/);
-    expect((await database.transits.get('t-1'))?.userRejected).toBe(false);
+    await expect(editor.setTransitRejected({ id: 't-1', nightId: 'night-1' }, true, 'transit 1')).rejects.toThrow(/no editor name/);
+    expect((await transitById(database, 't-1'))?.userRejected).toBe(false);
     expect(await recentAuditEntries(database, 10)).toHaveLength(0);
     expect(editor.undoStack).toHaveLength(0);
   });
@@ -79,17 +80,17 @@ describe('ArchiveEditor', () => {
   test('undo() refuses when the row was changed elsewhere since, and keeps the step', async () => {
     const database = await openWithTransits();
     const editor = new ArchiveEditor(database, () => 'R. Vance');
-    await editor.setTransitRejected('t-1', true, 'transit 1');
-    await database.transits.update('t-1', { note: 'edited in another window', updatedUtc: '2030-01-01T00:00:00.000Z' });
+    await editor.setTransitRejected({ id: 't-1', nightId: 'night-1' }, true, 'transit 1');
+    await updateTransitRow(database, 't-1', { note: 'edited in another window', updatedUtc: '2030-01-01T00:00:00.000Z' });
     await expect(editor.undo()).rejects.toThrow(/changed since it was read/);
-    expect((await database.transits.get('t-1'))?.note).toBe('edited in another window');
+    expect((await transitById(database, 't-1'))?.note).toBe('edited in another window');
     expect(editor.undoStack).toHaveLength(1);
   });
 
   test('a missing transit is named in the error', async () => {
     const database = await openWithTransits();
     const editor = new ArchiveEditor(database, () => 'R. Vance');
-    await expect(editor.setTransitRejected('t-9', true, 'transit 9')).rejects.toThrow(/transit t-9 is not in the archive/);
+    await expect(editor.setTransitRejected({ id: 't-9', nightId: 'night-1' }, true, 'transit 9')).rejects.toThrow(/transit t-9 is not in the archive/);
   });
 });
 

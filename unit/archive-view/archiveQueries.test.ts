@@ -3,13 +3,14 @@ import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { loadInstruments, loadNightDetail, loadNightSummaries, loadStarProgramme } from '../../renderer/archive/archiveQueries.ts';
 import { rebuildNightTallies } from '../../renderer/store/nightTallies.ts';
 import { nightRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows } from '../store/transitRows.ts';
 
 // Invented rows; the checks count what was written.
 async function filled(): Promise<ArchiveDatabase> {
   const database = new ArchiveDatabase(uniqueDatabaseName('queries'));
   await database.nights.bulkAdd([nightRow('n-2', { localDate: '2026-01-03' }), nightRow('n-1', { localDate: '2026-01-02' }), nightRow('n-3', { localDate: '2026-01-04' })]);
   await database.stars.bulkAdd([starRow('s-b', { catalogueId: 'B' }), starRow('s-a', { catalogueId: 'A' }), starRow('s-c', { catalogueId: 'C', visibility: 'staged' })]);
-  await database.transits.bulkAdd([
+  await putTransitRows(database, [
     transitRow('t-1', { nightId: 'n-1', starId: 's-a', utcMjd: 61_002.9 }),
     transitRow('t-2', { nightId: 'n-1', starId: 's-b', utcMjd: 61_002.8 }),
     transitRow('t-3', { nightId: 'n-2', starId: 's-a', utcMjd: 61_003.9 }),
@@ -28,7 +29,7 @@ describe('archive queries', () => {
   test('loadNightSummaries counts from the tallies: a staged transit is not counted, an invisible night not listed', async () => {
     const database = await filled();
     await database.nights.add(nightRow('n-4', { localDate: '2026-01-01', visibility: 'staged' }));
-    await database.transits.bulkAdd([transitRow('t-4', { nightId: 'n-3', starId: 's-a', visibility: 'staged' }), transitRow('t-5', { nightId: 'n-4', starId: 's-a' })]);
+    await putTransitRows(database, [transitRow('t-4', { nightId: 'n-3', starId: 's-a', visibility: 'staged' }), transitRow('t-5', { nightId: 'n-4', starId: 's-a' })]);
     await rebuildNightTallies(database);
     const summaries = await loadNightSummaries(database);
     expect(summaries.map((s) => [s.night.id, s.transitCount])).toEqual([['n-1', 2], ['n-2', 1], ['n-3', 0]]);
@@ -70,7 +71,7 @@ describe('loadNightSummaries over pages', () => {
     // Ids in the reverse order of the dates, so that key order and date order differ.
     const nights = Array.from({ length: 4500 }, (_, i) => nightRow(`n-${String(4500 - i).padStart(5, '0')}`, { localDate: new Date(Date.UTC(2000, 0, 1 + i)).toISOString().slice(0, 10) }));
     await database.nights.bulkAdd(nights);
-    await database.transits.bulkAdd([transitRow('t-1', { nightId: 'n-00007' }), transitRow('t-2', { nightId: 'n-00007' })]);
+    await putTransitRows(database, [transitRow('t-1', { nightId: 'n-00007' }), transitRow('t-2', { nightId: 'n-00007' })]);
     await rebuildNightTallies(database);
     const summaries = await loadNightSummaries(database);
     expect(summaries).toHaveLength(4500);

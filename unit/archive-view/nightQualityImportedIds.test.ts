@@ -10,20 +10,22 @@ import { loadDemoIfFirstStart } from '../../renderer/demo/demoArchive.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { runNightQuality } from '../../renderer/worker/tasks/nightQuality.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows } from '../store/transitRows.ts';
+import { transitsOfNights } from '../../renderer/store/transitGroups.ts';
 
 async function demoNights(count: number, randomIds: boolean): Promise<string> {
   const name = uniqueDatabaseName(randomIds ? 'quality-random-ids' : 'quality-demo-ids');
   const database = new ArchiveDatabase(name);
   await loadDemoIfFirstStart(database, async () => new Uint8Array(await readFile('assets/demo/demo-archive.mlbundle')), '2026-12-01T00:00:00.000Z');
   const nights = (await database.nights.orderBy('localDate').toArray()).slice(0, count);
-  const transits = await database.transits.where('nightId').anyOf(nights.map((n) => n.id)).toArray();
+  const transits = await transitsOfNights(database, nights.map((n) => n.id));
   const stars = await database.stars.toArray();
   const newId = new Map(stars.map((s) => [s.id, randomIds ? randomUUID() : s.id]));
-  await database.transaction('rw', database.nights, database.transits, database.stars, async () => {
-    await Promise.all([database.nights.clear(), database.transits.clear(), database.stars.clear()]);
+  await database.transaction('rw', database.nights, database.transitGroups, database.stars, async () => {
+    await Promise.all([database.nights.clear(), database.transitGroups.clear(), database.stars.clear()]);
     await database.nights.bulkAdd(nights);
     await database.stars.bulkAdd(stars.map((s) => ({ ...s, id: newId.get(s.id) ?? s.id })));
-    await database.transits.bulkAdd(transits.map((t) => ({ ...t, starId: newId.get(t.starId) ?? t.starId })));
+    await putTransitRows(database, transits.map((t) => ({ ...t, starId: newId.get(t.starId) ?? t.starId })));
   });
   database.close();
   return name;

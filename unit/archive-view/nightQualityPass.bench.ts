@@ -15,9 +15,11 @@ import { loadDemoIfFirstStart } from '../../renderer/demo/demoArchive.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { rebuildNightTallies } from '../../renderer/store/nightTallies.ts';
 import { nightRow, siteRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows, storedTransitCount } from '../store/transitRows.ts';
+import { allTransits } from '../../renderer/store/transitGroups.ts';
 
 async function keysBefore(database: ArchiveDatabase): Promise<number> {
-  const [sites, nights, transits] = await Promise.all([database.sites.toArray(), database.nights.toArray(), database.transits.toArray()]);
+  const [sites, nights, transits] = await Promise.all([database.sites.toArray(), database.nights.toArray(), allTransits(database)]);
   const byNight = new Map<string, TransitRecord[]>();
   for (const t of transits) {
     const list = byNight.get(t.nightId);
@@ -46,7 +48,7 @@ async function median(times: number, body: () => Promise<unknown>): Promise<numb
 }
 
 async function measure(label: string, database: ArchiveDatabase): Promise<void> {
-  const transits = await database.transits.count();
+  const transits = await storedTransitCount(database);
   const nights = await database.nights.count();
   const ledger = new NightChangeLedger();
   await keysAfter(database, ledger); // the first pass of a session starts the ledger
@@ -67,7 +69,7 @@ async function generated(transitCount: number): Promise<ArchiveDatabase> {
       const i = start + k;
       return transitRow(`t-${i}`, { nightId: `n-${Math.floor(i / perNight)}`, starId: `s-${i % 60}`, utcMjd: 51_544 + i / perNight });
     });
-    await database.transits.bulkAdd(rows);
+    await putTransitRows(database, rows);
   }
   await rebuildNightTallies(database); // written straight into the tables: the tallies as the app keeps them
   return database;

@@ -7,13 +7,14 @@ import { NightChangeLedger, nightStampKey, readNightStamps } from '../../rendere
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { rebuildNightTallies } from '../../renderer/store/nightTallies.ts';
 import { nightRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows, updateTransitRow } from '../store/transitRows.ts';
 
 const NIGHTS = [nightRow('n-1'), nightRow('n-2'), nightRow('n-3')];
 
 async function archive(): Promise<ArchiveDatabase> {
   const database = new ArchiveDatabase(uniqueDatabaseName('stamps'));
   await database.nights.bulkAdd(NIGHTS);
-  await database.transits.bulkAdd([1, 2, 3].flatMap((n) => [1, 2].map((k) => transitRow(`t-${n}-${k}`, { nightId: `n-${n}` }))));
+  await putTransitRows(database, [1, 2, 3].flatMap((n) => [1, 2].map((k) => transitRow(`t-${n}-${k}`, { nightId: `n-${n}` }))));
   return database;
 }
 
@@ -44,7 +45,7 @@ describe('readNightStamps(database, nights, ledger)', () => {
     const ledger = new NightChangeLedger();
     await database.settings.add(audit('audit/2026-01-01T00:00:00.000Z/5555', 'n-3'));
     const start = await keys(database, ledger);
-    await database.transits.add(transitRow('t-2-9', { nightId: 'n-2' }));
+    await putTransitRows(database, [transitRow('t-2-9', { nightId: 'n-2' })]);
     const added = await keys(database, ledger);
     expect(added.keys.map((k, i) => k === start.keys[i])).toEqual([true, false, true]);
     // Same instant as the newest seen key, but a uuid that sorts before it: must not be missed.
@@ -61,7 +62,7 @@ describe('readNightStamps(database, nights, ledger)', () => {
     const database = await archive();
     const ledger = new NightChangeLedger();
     const before = await keys(database, ledger);
-    await database.transits.update('t-2-1', { userRejected: true });
+    await updateTransitRow(database, 't-2-1', { userRejected: true });
     const after = await keys(database, ledger);
     expect(after.keys.map((k, i) => k === before.keys[i])).toEqual([true, false, true]);
   });
@@ -69,10 +70,10 @@ describe('readNightStamps(database, nights, ledger)', () => {
   test('an import committed changes the nights of its rows, not the others', async () => {
     const database = await archive();
     await database.imports.add(importRow('imp-1', 'staging'));
-    await database.transits.update('t-3-1', { importId: 'imp-1', visibility: 'staged' });
+    await updateTransitRow(database, 't-3-1', { importId: 'imp-1', visibility: 'staged' });
     const ledger = new NightChangeLedger();
     const before = await keys(database, ledger);
-    await database.transits.update('t-3-1', { visibility: 'visible' });
+    await updateTransitRow(database, 't-3-1', { visibility: 'visible' });
     await database.imports.put(importRow('imp-1', 'committed'));
     const after = await keys(database, ledger);
     expect(after.keys.map((k, i) => k === before.keys[i])).toEqual([true, true, false]);

@@ -13,6 +13,8 @@ import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { endNightQualitySession, NIGHT_QUALITY_CHUNK, nightQualityCache, runNightQuality } from '../../renderer/worker/tasks/nightQuality.ts';
 import { DerivedResultsDatabase } from '../../renderer/store/derivedResults.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows } from '../store/transitRows.ts';
+import { transitsOfNight, transitsOfNights } from '../../renderer/store/transitGroups.ts';
 
 interface Truth { blunders: { transitId: string; kind: string }[] }
 const BLUNDER_NIGHT = 'night-2020-03-17'; // demo-truth.json: a star swapped (ML-011 written as ML-012)
@@ -27,11 +29,11 @@ async function demoSubset(keepFirst: number): Promise<{ name: string; database: 
   // Keep the few nights by clearing and writing them back: deleting thousands of indexed rows one
   // by one takes minutes in fake-indexeddb.
   const keptNights = nights.filter((n) => kept.includes(n.id));
-  const keptTransits = await database.transits.where('nightId').anyOf(kept).toArray();
+  const keptTransits = await transitsOfNights(database, kept);
   await database.nights.clear();
-  await database.transits.clear();
+  await database.transitGroups.clear();
   await database.nights.bulkAdd(keptNights);
-  await database.transits.bulkAdd(keptTransits);
+  await putTransitRows(database, keptTransits);
   return { name, database, kept, truth };
 }
 
@@ -63,12 +65,12 @@ describe('runNightQuality({ databaseName })', () => {
   test('rejecting a transit reduces only its night again; restoring it too, and the counts follow', async () => {
     const editor = new ArchiveEditor(subset.database, () => 'Test Editor');
     const night = subset.kept[3];
-    const transit = (await subset.database.transits.where('nightId').equals(night).toArray())[0];
-    await editor.setTransitRejected(transit.id, true, 'a transit');
+    const transit = (await transitsOfNight(subset.database, night))[0];
+    await editor.setTransitRejected(transit, true, 'a transit');
     const afterReject = await runNightQuality({ kind: 'night-quality', databaseName: subset.name }, UNCONTROLLED);
     expect(afterReject).toMatchObject({ reduced: 1, reused: subset.kept.length - 1 });
     expect(afterReject.nights.find((q) => q.nightId === night)?.transitsUserRejected).toBe(1);
-    await editor.setTransitRejected(transit.id, false, 'a transit');
+    await editor.setTransitRejected(transit, false, 'a transit');
     const afterRestore = await runNightQuality({ kind: 'night-quality', databaseName: subset.name }, UNCONTROLLED);
     expect(afterRestore.reduced).toBe(1);
     expect(afterRestore.nights.find((q) => q.nightId === night)?.transitsUserRejected).toBe(0);

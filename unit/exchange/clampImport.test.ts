@@ -10,6 +10,7 @@ import { beginImport, writeImport } from '../../renderer/exchange/stagedWriter.t
 import type { ImportFileKind } from '../../renderer/exchange/importReport.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
 import { NOW, SITE_JSON, STAR_LIST_CSV, transitLine, transitLog } from './exchangeFixtures.ts';
+import { allTransits } from '../../renderer/store/transitGroups.ts';
 
 async function importWhole(database: ArchiveDatabase, kind: ImportFileKind, bytes: Uint8Array, fileName: string) {
   const req: ImportFileRequest = { kind, bytes, fileName, defaultInstrumentId: 'qt-2', columnMapping: {} };
@@ -28,7 +29,7 @@ describe('the clamp position through the transit-log import', () => {
     const none = transitLine('QX-1', 1).replace(',upper,west,', ',upper,,');
     const report = await importWhole(database, 'transit-log', transitLog([transitLine('QX-2', 0), east, none]), 'log.csv');
     expect(report.rejectedRowCount).toBe(0);
-    const transits = await database.transits.toArray();
+    const transits = await allTransits(database);
     expect(transits.map((t) => t.clamp ?? 'none').sort()).toEqual(['east', 'none', 'west']);
     expect(transits.every((t) => !t.note.includes('clamp'))).toBe(true);
     const qx1 = (await database.stars.where('catalogueId').equals('QX-1').first())!;

@@ -9,6 +9,8 @@ import { beginImport, writeImport } from '../../renderer/exchange/stagedWriter.t
 import type { ImportFileKind } from '../../renderer/exchange/importReport.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
 import { NOW, SITE_JSON, STAR_LIST_CSV, transitLine, transitLog } from './exchangeFixtures.ts';
+import { storedTransitCount } from '../store/transitRows.ts';
+import { allTransits } from '../../renderer/store/transitGroups.ts';
 
 function request(kind: ImportFileKind, bytes: Uint8Array, fileName = `file-${kind}`): ImportFileRequest {
   return { kind, bytes, fileName, defaultInstrumentId: null, columnMapping: {} };
@@ -42,7 +44,7 @@ function progressControl(onProgress: (done: number) => void): TaskControl & { ca
   return control;
 }
 
-const visibleCount = (database: ArchiveDatabase) => database.transits.filter((t) => t.visibility === 'visible').count();
+const visibleCount = async (database: ArchiveDatabase) => (await allTransits(database)).filter((t) => t.visibility === 'visible').length;
 
 describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
   test('valid + rejected = total for each file, and the counts land in the tables', async () => {
@@ -88,14 +90,14 @@ describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
     const readsDuringWrite: Promise<number>[] = [];
     const control = progressControl((done) => {
       progress.push(done);
-      readsDuringWrite.push(reader.transits.count());
+      readsDuringWrite.push(storedTransitCount(reader));
       if (progress.length === 4) control.cancelled = true;
     });
     await expect(writeImport(database, importId, plan.writes, control, () => NOW, { chunkRows: CHUNK })).rejects.toThrow(/cancelled/);
     // 2·CHUNK+10 nights then transits, CHUNK rows per report: the cancel lands before the 5th chunk.
     expect(progress).toEqual([CHUNK, 2 * CHUNK, 2 * CHUNK + 10, 3 * CHUNK + 10]);
     expect(await Promise.all(readsDuringWrite)).toEqual([0, 0, 0, 0]);
-    expect(await database.transits.count()).toBe(0);
+    expect(await storedTransitCount(database)).toBe(0);
     expect(await database.nights.count()).toBe(0);
     expect((await database.imports.get(importId))?.status).toBe('abandoned');
     reader.close();
@@ -117,7 +119,7 @@ describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
     const reopened = new ArchiveDatabase(name);
     expect(await sweepInterruptedImports(reopened, NOW)).toBe(1);
     expect((await reopened.imports.get(importId))?.status).toBe('abandoned');
-    expect(await reopened.transits.count()).toBe(0);
+    expect(await storedTransitCount(reopened)).toBe(0);
     expect(await reopened.nights.count()).toBe(0);
     expect(await reopened.stars.count()).toBe(2);
     reopened.close();
@@ -130,7 +132,7 @@ describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
     const again = await importWhole(database, request('transit-log', log));
     expect(again).toMatchObject({ totalRows: 3, validRows: 0, duplicateCount: 3, rejectedRowCount: 3 });
     expect(again.rejected[0].reason).toMatch(/already in the archive/);
-    expect(await database.transits.count()).toBe(3);
+    expect(await storedTransitCount(database)).toBe(3);
     // The same star list again updates the stars in place (same ids), never doubles them.
     const before = await database.stars.orderBy('id').primaryKeys();
     await importWhole(database, request('star-list', encodeUtf8(STAR_LIST_CSV)));
@@ -141,20 +143,21 @@ describe('import pipeline (site, stars, transits) in fake-indexeddb', () => {
   test('a quota error during staging leaves the earlier data unchanged', async () => {
     const database = await withPrerequisites();
     await importWhole(database, request('transit-log', transitLog([transitLine('QX-1', 0)])));
-    const before = await database.transits.toArray();
+    const before = await allTransits(database);
     const lines = Array.from({ length: CHUNK + 20 }, (_, day) => transitLine('QX-2', day));
     const plan = await planImport(database, request('transit-log', transitLog(lines)), NOW);
-    const original = database.transits.bulkPut.bind(database.transits);
+    // New transits are written as groups (renderer/store/transitGroups.ts): the second group write fails.
+    const original = database.transitGroups.bulkAdd.bind(database.transitGroups);
     let calls = 0;
-    database.transits.bulkPut = ((...args: Parameters<typeof original>) => {
+    database.transitGroups.bulkAdd = ((...args: Parameters<typeof original>) => {
       calls++;
       if (calls === 2) throw new DOMException('The quota has been exceeded.', 'QuotaExceededError');
       return original(...args);
     }) as typeof original;
     const importId = await beginImport(database, 'quota.csv', 'transit-log', NOW);
     await expect(writeImport(database, importId, plan.writes, UNCONTROLLED, () => NOW, { chunkRows: CHUNK })).rejects.toMatchObject({ name: 'QuotaExceededError' });
-    database.transits.bulkPut = original;
-    expect(await database.transits.toArray()).toEqual(before);
+    database.transitGroups.bulkAdd = original;
+    expect(await allTransits(database)).toEqual(before);
     expect((await database.imports.get(importId))?.status).toBe('abandoned');
     database.close();
   });

@@ -3,6 +3,7 @@ import { describe, expect, test } from 'vitest';
 import { ArchiveDatabase, ARCHIVE_SCHEMA_VERSION } from '../../renderer/store/database.ts';
 import { SCHEMA_V1 } from '../../renderer/store/schemaV1.ts';
 import { siteRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+import { transitById } from '../store/transitRows.ts';
 
 describe('schema version 2 (settings table)', () => {
   test('a version-1 database with data opens with the current code: rows unchanged, settings usable', async () => {
@@ -20,7 +21,7 @@ describe('schema version 2 (settings table)', () => {
     expect(current.verno).toBe(ARCHIVE_SCHEMA_VERSION);
     expect(await current.sites.get('s1')).toEqual(rows.site);
     expect(await current.stars.get('x1')).toEqual(rows.star);
-    expect(Object.is((await current.transits.get('t1'))?.utcMjd, 61_000.123456789)).toBe(true);
+    expect(Object.is((await transitById(current, 't1'))?.utcMjd, 61_000.123456789)).toBe(true);
     await current.settings.put({ key: 'lastExportedUtc', value: '2026-03-01T00:00:00.000Z' });
     expect(await current.settings.get('lastExportedUtc')).toEqual({ key: 'lastExportedUtc', value: '2026-03-01T00:00:00.000Z' });
     current.close();

@@ -8,6 +8,7 @@ import { TABLE_EXPORT_CHUNK_ROWS, tableCsvBytes } from '../../renderer/exchange/
 import { transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 import { watchingControl } from './exchangeFixtures.ts';
 import { UNCONTROLLED } from '../../core/task/task-control.ts';
+import { putTransitRows } from '../store/transitRows.ts';
 
 function text(bytes: Uint8Array): string {
   const decoded = decodeUtf8(bytes);
@@ -18,7 +19,7 @@ function text(bytes: Uint8Array): string {
 async function archiveWith(visible: number, staged: number): Promise<{ database: ArchiveDatabase; rows: TransitRecord[] }> {
   const database = new ArchiveDatabase(uniqueDatabaseName('table-export'));
   const rows = Array.from({ length: visible }, (_, k) => transitRow(`t-${String(k).padStart(6, '0')}`, { utcMjd: 61_000 + k / 7 }));
-  await database.transits.bulkPut([...rows, ...Array.from({ length: staged }, (_, k) => transitRow(`s-${k}`, { visibility: 'staged', importId: 'imp-x' }))]);
+  await putTransitRows(database, [...rows, ...Array.from({ length: staged }, (_, k) => transitRow(`s-${k}`, { visibility: 'staged', importId: 'imp-x' }))]);
   return { database, rows };
 }
 
@@ -41,7 +42,7 @@ describe('table export in the worker', () => {
   test('an empty table exports its header only, and a cancel between chunks stops the export', async () => {
     const { database } = await archiveWith(0, 2);
     expect(text((await tableCsvBytes(database, 'transits', UNCONTROLLED)).bytes)).toBe(archiveTableCsv('transits', []));
-    await database.transits.bulkPut(Array.from({ length: TABLE_EXPORT_CHUNK_ROWS + 1 }, (_, k) => transitRow(`c-${k}`)));
+    await putTransitRows(database, Array.from({ length: TABLE_EXPORT_CHUNK_ROWS + 1 }, (_, k) => transitRow(`c-${k}`)));
     const control = watchingControl(() => void (control.cancelled = true));
     await expect(tableCsvBytes(database, 'transits', control)).rejects.toThrow(/cancelled after 20000 items/);
     database.close();

@@ -5,13 +5,14 @@ import { exportBundle } from '../../renderer/exchange/bundleExport.ts';
 import { forgetVerifiedBundle, verifyBundleOnce } from '../../renderer/exchange/verifiedBundleCache.ts';
 import { runExchangeTask } from '../../renderer/worker/tasks/exchangeTasks.ts';
 import { nightRow, siteRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows, storedTransitCount } from '../store/transitRows.ts';
 
 // Invented rows; what matters is which bytes are checked and restored.
 async function bundleOf(transits: number): Promise<Uint8Array> {
   const source = new ArchiveDatabase(uniqueDatabaseName('cache-source'));
   await source.sites.put(siteRow('site-1'));
   await source.nights.put(nightRow('night-1'));
-  await source.transits.bulkPut(Array.from({ length: transits }, (_, k) => transitRow(`t-${k}`, { utcMjd: 61_000 + k / 100 })));
+  await putTransitRows(source, Array.from({ length: transits }, (_, k) => transitRow(`t-${k}`, { utcMjd: 61_000 + k / 100 })));
   const { bytes } = await exportBundle(source, UNCONTROLLED, '2026-12-02T07:00:00.000Z', 'test');
   source.close();
   return bytes;
@@ -48,7 +49,7 @@ describe('verifyBundleOnce(database, bytes)', () => {
     const restored = await runExchangeTask({ kind: 'bundle-restore', databaseName: name, bytes: previewed.slice(), mode: 'into-empty' }, UNCONTROLLED);
     expect(restored).toMatchObject({ kind: 'bundle-restore', rowCounts: { transits: 5, nights: 1, sites: 1 } });
     const database = new ArchiveDatabase(name);
-    expect(await database.transits.count()).toBe(5);
+    expect(await storedTransitCount(database)).toBe(5);
     expect(await database.nightTallies.count()).toBe(1);
     database.close();
   });

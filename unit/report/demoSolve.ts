@@ -7,6 +7,8 @@ import { WHOLE_ARCHIVE } from '../../renderer/solve/solveSelection.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { runJointSolve } from '../../renderer/worker/tasks/jointSolve.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows } from '../store/transitRows.ts';
+import { transitsOfNights } from '../../renderer/store/transitGroups.ts';
 
 /**
  * A real saved solve, made the way the Solve view makes one: the shipped demo archive (invented,
@@ -21,11 +23,11 @@ export async function demoSolveRecord(nights: number): Promise<{ record: Reducti
   // Keep the first nights by clearing and writing them back: deleting thousands of indexed rows
   // one by one takes minutes in fake-indexeddb.
   const kept = all.slice(0, nights);
-  const keptTransits = await database.transits.where('nightId').anyOf(kept.map((n) => n.id)).toArray();
+  const keptTransits = await transitsOfNights(database, kept.map((n) => n.id));
   await database.nights.clear();
-  await database.transits.clear();
+  await database.transitGroups.clear();
   await database.nights.bulkAdd(kept);
-  await database.transits.bulkAdd(keptTransits);
+  await putTransitRows(database, keptTransits);
   const model = { ...DEFAULT_JOINT_MODEL, catalogueSigma: { default: { positionMas: 5, pmMasYr: 0.7 }, stars: {} } };
   const { reduction } = await runJointSolve({ kind: 'joint-solve', databaseName: name, label: 'Demo, first nights', model, selection: WHOLE_ARCHIVE, codeVersion: '0.1.0-test' }, UNCONTROLLED);
   return { record: reduction, database };

@@ -16,6 +16,8 @@ import { WHOLE_ARCHIVE } from '../../renderer/solve/solveSelection.ts';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { runJointSolve, solveInputsFromStore } from '../../renderer/worker/tasks/jointSolve.ts';
 import { uniqueDatabaseName } from '../store/rowFactories.ts';
+import { putTransitRows } from '../store/transitRows.ts';
+import { allTransits } from '../../renderer/store/transitGroups.ts';
 
 const MAS = 1; // results are in mas; named so the tolerances read as units
 const run = (args: string[]) => spawnSync(process.execPath, ['main/cli/bin.mjs', ...args], { encoding: 'utf8', env: { ...process.env, TZ: 'UTC' } });
@@ -41,7 +43,7 @@ beforeAll(async () => {
   await database.instrumentEvents.bulkPut([...content.events]);
   await database.stars.bulkPut([...content.stars]);
   await database.nights.bulkPut([...content.nights]);
-  await database.transits.bulkPut([...content.transits]);
+  await putTransitRows(database, [...content.transits]);
   database.close();
 }, 120_000);
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -86,8 +88,8 @@ describe('folderFingerprint(files)', () => {
     const first = (await solveInputsFromStore(database, WHOLE_ARCHIVE)).fingerprint;
     expect((await solveInputsFromStore(database, WHOLE_ARCHIVE)).fingerprint).toBe(first);
     expect(first).toMatch(/^[0-9a-f]{64}$/);
-    const transit = (await database.transits.limit(1).toArray())[0];
-    await database.transits.put({ ...transit, userRejected: !transit.userRejected });
+    const transit = (await allTransits(database))[0];
+    await putTransitRows(database, [{ ...transit, userRejected: !transit.userRejected }]);
     expect((await solveInputsFromStore(database, WHOLE_ARCHIVE)).fingerprint).not.toBe(first);
     database.close();
   });

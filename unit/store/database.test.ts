@@ -3,6 +3,8 @@ import { Dexie } from 'dexie';
 import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { SCHEMA_V1 } from '../../renderer/store/schemaV1.ts';
 import { nightRow, siteRow, starRow, transitRow, uniqueDatabaseName } from './rowFactories.ts';
+import { putTransitRows } from './transitRows.ts';
+import { transitsOfNight, transitsOfStar } from '../../renderer/store/transitGroups.ts';
 
 describe('ArchiveDatabase schema version 1', () => {
   test('SCHEMA_V1 is unchanged since it shipped (add a version 2 instead of editing it)', () => {
@@ -22,43 +24,39 @@ describe('ArchiveDatabase schema version 1', () => {
     });
   });
 
-  test('opens with every table DESIGN.md §3 names (since version 2 settings, since version 3 nightTallies)', async () => {
+  test('opens with every table DESIGN.md §3 names (since version 2 settings, since version 3 nightTallies, since version 4 transits in groups)', async () => {
     const database = new ArchiveDatabase(uniqueDatabaseName('tables'));
     await database.open();
-    expect(database.verno).toBe(3);
+    expect(database.verno).toBe(4);
     expect(database.tables.map((table) => table.name).sort()).toEqual(
       ['earthOrientation', 'imports', 'instrumentEvents', 'instruments', 'leapSeconds', 'nightTallies', 'nights',
-        'reductions', 'settings', 'sites', 'stars', 'transits'],
+        'reductions', 'settings', 'sites', 'stars', 'transitGroups'],
     );
     database.close();
   });
 
-  test('transits.where([starId+utcMjd]).between() returns one star in time order', async () => {
+  test('transitsOfStar returns one star in a time range, in time order', async () => {
     const database = new ArchiveDatabase(uniqueDatabaseName('by-star'));
-    await database.transits.bulkPut([
+    await putTransitRows(database, [
       transitRow('t3', { starId: 'star-a', utcMjd: 61_003.9 }),
       transitRow('t1', { starId: 'star-a', utcMjd: 61_001.9 }),
       transitRow('t2', { starId: 'star-b', utcMjd: 61_002.9 }),
       transitRow('t4', { starId: 'star-a', utcMjd: 61_010.9 }),
     ]);
-    const found = await database.transits
-      .where('[starId+utcMjd]')
-      .between(['star-a', 61_000], ['star-a', 61_005])
-      .toArray();
+    const found = await transitsOfStar(database, 'star-a', 61_000, 61_005);
     expect(found.map((row) => row.id)).toEqual(['t1', 't3']);
     database.close();
   });
 
-  test('transits by nightId; version 3 no longer indexes [instrumentId+utcMjd] or utcMjd', async () => {
+  test('transits by night; version 4 stores them in groups indexed by star and time, nights and imports', async () => {
     const database = new ArchiveDatabase(uniqueDatabaseName('by-night'));
-    await database.transits.bulkPut([
+    await putTransitRows(database, [
       transitRow('t1', { nightId: 'n1', instrumentId: 'i1', utcMjd: 61_001.8 }),
       transitRow('t2', { nightId: 'n1', instrumentId: 'i1', utcMjd: 61_001.7 }),
       transitRow('t3', { nightId: 'n2', instrumentId: 'i2', utcMjd: 61_001.75 }),
     ]);
-    expect((await database.transits.where('nightId').equals('n1').primaryKeys()).sort()).toEqual(['t1', 't2']);
-    await expect(database.transits.where('[instrumentId+utcMjd]').between(['i1', Dexie.minKey], ['i1', Dexie.maxKey]).toArray()).rejects.toThrow(/not indexed/);
-    expect(database.transits.schema.indexes.map((index) => index.name).sort()).toEqual(['[starId+utcMjd]', 'importId', 'nightId']);
+    expect((await transitsOfNight(database, 'n1')).map((t) => t.id)).toEqual(['t2', 't1']);
+    expect(database.transitGroups.schema.indexes.map((index) => index.name).sort()).toEqual(['[starId+firstUtcMjd]', 'importIds', 'nightIds']);
     database.close();
   });
 

@@ -3,6 +3,7 @@ import { ArchiveDatabase } from '../../renderer/store/database.ts';
 import { commitImport, sweepInterruptedImports } from '../../renderer/store/importStaging.ts';
 import type { ImportRecord } from '../../core/archive/records.ts';
 import { siteRow, starRow, transitRow, uniqueDatabaseName } from './rowFactories.ts';
+import { putTransitRows, storedTransitCount, transitById } from './transitRows.ts';
 
 const START = '2026-03-01T20:00:00.000Z';
 const END = '2026-03-01T20:00:05.000Z';
@@ -22,7 +23,7 @@ async function stagedArchive(): Promise<ArchiveDatabase> {
     starRow('a1', { visibility: 'staged', importId: 'imp-a' }),
     starRow('b1', { visibility: 'visible', importId: 'imp-b' }),
   ]);
-  await database.transits.bulkPut([transitRow('a2', { visibility: 'staged', importId: 'imp-a' })]);
+  await putTransitRows(database, [transitRow('a2', { visibility: 'staged', importId: 'imp-a' })]);
   return database;
 }
 
@@ -31,7 +32,7 @@ describe('import staging', () => {
     const database = await stagedArchive();
     await commitImport(database, 'imp-a', END);
     expect((await database.stars.get('a1'))?.visibility).toBe('visible');
-    expect((await database.transits.get('a2'))?.visibility).toBe('visible');
+    expect((await transitById(database, 'a2'))?.visibility).toBe('visible');
     expect(await database.imports.get('imp-a')).toMatchObject({ status: 'committed', finishedUtc: END });
     database.close();
   });
@@ -49,7 +50,7 @@ describe('import staging', () => {
     await database.sites.put(siteRow('site-hand'));
     expect(await sweepInterruptedImports(database, END)).toBe(1);
     expect((await database.stars.toCollection().primaryKeys()).sort()).toEqual(['b1', 'hand']);
-    expect(await database.transits.count()).toBe(0);
+    expect(await storedTransitCount(database)).toBe(0);
     expect(await database.sites.count()).toBe(1);
     expect((await database.imports.get('imp-a'))?.status).toBe('abandoned');
     expect(await sweepInterruptedImports(database, END)).toBe(0);

@@ -13,6 +13,7 @@ type RowUpgrade = (table: string, row: Row) => Row;
 const UPGRADE_TO: Readonly<Record<number, RowUpgrade>> = {
   // Version 2 adds the settings table; rows of version 1 are unchanged (schemaV2.ts).
   // Version 3 drops two transit indexes and adds the derived nightTallies table; no row is rewritten (schemaV3.ts).
+  // Version 4 moves the transit rows, unchanged, into groups (schemaV4.ts): read back as rows, none differs.
 };
 
 /** The row a database first written at `fromVersion` must hold once upgraded to `toVersion`. */

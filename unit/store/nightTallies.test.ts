@@ -14,6 +14,9 @@ import { addTransit } from '../../renderer/tonight/tonightStore.ts';
 import { ArchiveEditor } from '../../renderer/archive/archiveEditor.ts';
 import { DEMO_IMPORT_ID, loadDemoIfFirstStart, removeDemoArchive } from '../../renderer/demo/demoArchive.ts';
 import { nightRow, transitRow, uniqueDatabaseName } from './rowFactories.ts';
+import { putTransitRows, transitById } from './transitRows.ts';
+import { allTransits } from '../../renderer/store/transitGroups.ts';
+import { transitsOfImport } from '../../renderer/store/transitGroups.ts';
 
 // Expected tallies are counted by hand from the invented rows each test writes, except where a
 // test compares with talliesFromRows over the whole table (its own check on a large set), which
@@ -27,7 +30,7 @@ function tally(nightId: string, transitCount: number, rejectedCount: number, fir
 async function archiveWith(nights: string[], transits: TransitRecord[]): Promise<ArchiveDatabase> {
   const database = new ArchiveDatabase(uniqueDatabaseName('tallies'));
   await database.nights.bulkPut(nights.map((id, k) => nightRow(id, { localDate: `2026-01-0${k + 1}` })));
-  await database.transits.bulkPut(transits);
+  await putTransitRows(database, transits);
   // Written around the app's paths, so the starting tallies are computed here.
   await database.nightTallies.bulkPut(talliesFromRows(await database.nights.toArray(), transits));
   return database;
@@ -35,7 +38,7 @@ async function archiveWith(nights: string[], transits: TransitRecord[]): Promise
 
 /** What the tallies must be: recomputed from every stored night and transit. */
 async function recomputed(database: ArchiveDatabase): Promise<NightTallyRecord[]> {
-  const expected = talliesFromRows(await database.nights.toArray(), await database.transits.toArray());
+  const expected = talliesFromRows(await database.nights.toArray(), await allTransits(database));
   return expected.sort((a, b) => `${a.instrumentId} ${a.localDate}`.localeCompare(`${b.instrumentId} ${b.localDate}`));
 }
 
@@ -88,7 +91,7 @@ describe('every path that writes transits keeps nightTallies true', () => {
     const failing = await beginImport(database, 'bad.csv', 'transit-log', NOW);
     // The second row names a night no one wrote: the tally refuses it inside the import's one transaction.
     await expect(writeImport(database, failing, { created: { transits: [transitRow('e', { nightId: 'n1', utcMjd: 61_000.99 }), transitRow('f', { nightId: 'nowhere' })] }, updated: {} }, UNCONTROLLED, () => NOW)).rejects.toThrow(/nowhere/);
-    expect(await database.transits.get('e')).toBeUndefined();
+    expect(await transitById(database, 'e')).toBeUndefined();
     expect(await readNightTallies(database)).toStrictEqual(afterImport);
     database.close();
   });
@@ -106,7 +109,7 @@ describe('every path that writes transits keeps nightTallies true', () => {
     expect(await readNightTallies(database)).toStrictEqual([tally('n1', 2, 0, 61_000.8, 61_000.9)]);
     await database.imports.put({ id: 'imp-swept', fileName: 'b.csv', format: 'transit-log', status: 'staging', startedUtc: NOW, finishedUtc: null, rowCounts: {}, rejectedRows: [] });
     expect(await sweepInterruptedImports(database, NOW)).toBe(1);
-    expect(await database.transits.get('t')).toBeUndefined();
+    expect(await transitById(database, 't')).toBeUndefined();
     expect(await readNightTallies(database)).toStrictEqual([tally('n1', 2, 0, 61_000.8, 61_000.9)]);
     database.close();
   });
@@ -125,13 +128,13 @@ describe('every path that writes transits keeps nightTallies true', () => {
   test('archive edits: reject, restore and undo each move the rejected count', async () => {
     const database = await archiveWith(['n1'], [transitRow('a', { nightId: 'n1', utcMjd: 61_000.8 }), transitRow('b', { nightId: 'n1', utcMjd: 61_000.9 })]);
     const editor = new ArchiveEditor(database, () => 'T. Tester');
-    await editor.setTransitRejected('a', true, 'transit a');
+    await editor.setTransitRejected({ id: 'a', nightId: 'n1' }, true, 'transit a');
     expect(await readNightTallies(database)).toStrictEqual([tally('n1', 2, 1, 61_000.8, 61_000.9)]);
-    await editor.setTransitRejected('b', true, 'transit b');
+    await editor.setTransitRejected({ id: 'b', nightId: 'n1' }, true, 'transit b');
     expect((await readNightTallies(database))[0].rejectedCount).toBe(2);
     await editor.undo();
     expect((await readNightTallies(database))[0].rejectedCount).toBe(1);
-    await editor.setTransitRejected('a', false, 'transit a');
+    await editor.setTransitRejected({ id: 'a', nightId: 'n1' }, false, 'transit a');
     expect(await readNightTallies(database)).toStrictEqual([tally('n1', 2, 0, 61_000.8, 61_000.9)]);
     database.close();
   });
@@ -149,11 +152,11 @@ describe('every path that writes transits keeps nightTallies true', () => {
 
   test('a restore keeps a transit whose night the bundle lacks, and tallies the others', async () => {
     const source = await archiveWith(['n1'], [transitRow('a', { nightId: 'n1', utcMjd: 61_000.8 })]);
-    await source.transits.put(transitRow('orphan', { nightId: 'not-in-bundle', utcMjd: 61_005.5 }));
+    await putTransitRows(source, [transitRow('orphan', { nightId: 'not-in-bundle', utcMjd: 61_005.5 })]);
     const exported = await exportBundle(source, UNCONTROLLED, NOW, 'test');
     const target = new ArchiveDatabase(uniqueDatabaseName('tallies-orphan'));
     await restoreBundle(target, await verifyBundle(target, exported.bytes, UNCONTROLLED), 'into-empty');
-    expect(await target.transits.get('orphan')).toBeDefined();
+    expect(await transitById(target, 'orphan')).toBeDefined();
     expect(await readNightTallies(target)).toStrictEqual([tally('n1', 1, 0, 61_000.8, 61_000.8)]);
     source.close();
     target.close();
@@ -166,7 +169,7 @@ describe('every path that writes transits keeps nightTallies true', () => {
     expect(tallies.reduce((sum, t) => sum + t.transitCount, 0)).toBe(counts?.transits);
     expect(tallies).toStrictEqual(await recomputed(database));
     expect(tallies.length).toBeGreaterThan(100);
-    expect(await database.transits.where('importId').equals(DEMO_IMPORT_ID).count()).toBe(counts?.transits);
+    expect((await transitsOfImport(database, DEMO_IMPORT_ID)).length).toBe(counts?.transits);
     await removeDemoArchive(database, NOW);
     expect(await readNightTallies(database)).toStrictEqual([]);
     database.close();

@@ -2,7 +2,7 @@ import { describe, expect, test } from 'vitest';
 import { Dexie } from 'dexie';
 import { openArchive } from '../../renderer/store/openArchive.ts';
 import { describeOpenFailure } from '../../renderer/store/describeOpenFailure.ts';
-import { SCHEMA_V3 } from '../../renderer/store/schemaV3.ts';
+import { SCHEMA_V4 } from '../../renderer/store/schemaV4.ts';
 import { siteRow, uniqueDatabaseName } from './rowFactories.ts';
 
 describe('openArchive(name)', () => {
@@ -21,7 +21,7 @@ describe('openArchive(name)', () => {
   test('refuses an archive of a newer schema and leaves its rows in place', async () => {
     const name = uniqueDatabaseName('newer');
     const newer = new Dexie(name);
-    newer.version(4).stores({ ...SCHEMA_V3, futureTable: 'id' });
+    newer.version(5).stores({ ...SCHEMA_V4, futureTable: 'id' });
     await newer.table('sites').put(siteRow('kept'));
     newer.close();
 
@@ -29,12 +29,12 @@ describe('openArchive(name)', () => {
     expect(result.kind).toBe('failed');
     if (result.kind !== 'failed') return;
     expect(result.failure.errorName).toBe('VersionError');
-    expect(result.failure.message).toContain('schema version 4');
+    expect(result.failure.message).toContain('schema version 5');
     expect(result.failure.advice).toContain('Nothing in the archive was changed or deleted');
 
     const check = new Dexie(name);
     await check.open(); // open without a declared schema: reads what is there
-    expect(check.verno).toBe(4);
+    expect(check.verno).toBe(5);
     expect(await check.table('sites').get('kept')).toBeDefined();
     check.close();
   });
