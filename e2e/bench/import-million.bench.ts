@@ -96,6 +96,15 @@ async function main(): Promise<void> {
       new PerformanceObserver((list) => {
         for (const entry of list.getEntries()) seen.push({ start: entry.startTime, ms: entry.duration });
       }).observe({ type: 'longtask', buffered: true });
+      // Long animation frames name the scripts that ran in them (Chromium): what a long task was.
+      const frames: { start: number; ms: number; scripts: string[] }[] = [];
+      (window as unknown as { __longFrames: typeof frames }).__longFrames = frames;
+      new PerformanceObserver((list) => {
+        for (const entry of list.getEntries() as (PerformanceEntry & { scripts?: { duration: number; invoker: string; sourceFunctionName: string; sourceURL: string; sourceCharPosition: number }[] })[]) {
+          frames.push({ start: entry.startTime, ms: entry.duration, scripts: (entry.scripts ?? []).filter((s) => s.duration > 20)
+            .map((s) => `${s.duration.toFixed(0)} ms ${s.invoker} ${s.sourceFunctionName || '(anonymous)'} ${s.sourceURL.split('/').pop() ?? ''}:${s.sourceCharPosition}`) });
+        }
+      }).observe({ type: 'long-animation-frame', buffered: true });
     });
     await page.goto(`http://127.0.0.1:${PORT}/?no-demo#/exchange`);
     await page.getByRole('button', { name: 'Choose a file to import…' }).waitFor();
@@ -177,6 +186,11 @@ async function main(): Promise<void> {
     console.log(`longest main-thread task during the range query: ${duringQuery.ms.toFixed(0)} ms (${duringQuery.count}; the bench's own raw getAll of groups on the page's thread, not the app's)`);
     console.log(`longest main-thread task over the whole run:     ${atEnd.ms.toFixed(0)} ms (${atEnd.count} long tasks)`);
     if (TRANSITS < TARGET) console.log('Figures marked "extrapolated" are a linear scaling of the measured size, not measurements at 1,000,000.');
+    // The scripts behind the longest frames (over 150 ms), to say what a long main-thread task was.
+    const frames = await page.evaluate(() => (window as unknown as { __longFrames: { start: number; ms: number; scripts: string[] }[] }).__longFrames);
+    for (const frame of frames.filter((f) => f.ms > 150).sort((a, b) => b.ms - a.ms).slice(0, 6)) {
+      console.log(`long frame ${frame.ms.toFixed(0)} ms at ${(frame.start / 1000).toFixed(1)} s: ${frame.scripts.join('; ') || 'no script over 20 ms (rendering, or the browser itself)'}`);
+    }
     for (const line of [...new Set(stageLines)].filter((l) => !/site\.json|stars\.csv/.test(l))) console.log(line);
   } finally {
     await browser.close();

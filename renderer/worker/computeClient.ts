@@ -1,8 +1,10 @@
 import type { FromWorker, TaskRequest, TaskResult, ToWorker } from './protocol.ts';
+import { withTransferableBytes } from './transferBytes.ts';
 
 /** The part of a Worker the client uses; tests connect it to a WorkerDispatcher directly. */
 export interface WorkerPort {
-  postMessage(message: ToWorker): void;
+  /** `transfer`: buffers handed over to the worker (transferBytes.ts), not copied. */
+  postMessage(message: ToWorker, transfer?: Transferable[]): void;
   addEventListener(type: 'message', listener: (event: { readonly data: unknown }) => void): void;
   addEventListener(type: 'error', listener: (event: { readonly message?: string }) => void): void;
 }
@@ -43,7 +45,10 @@ export class ComputeClient {
   run(request: TaskRequest, onProgress: (done: number, total: number) => void = () => {}): JobHandle {
     const jobId = `job-${this.#nextJob++}`;
     const outcome = new Promise<JobOutcome>((settle) => this.#pending.set(jobId, { onProgress, settle }));
-    this.#port.postMessage({ type: 'start', jobId, request });
+    // Byte arrays go over as transferred copies: the caller keeps its bytes, and the window's thread
+    // pays a memory copy, not a structured clone of a file that may be hundreds of megabytes.
+    const { message, transfer } = withTransferableBytes({ type: 'start', jobId, request } as ToWorker);
+    this.#port.postMessage(message, transfer);
     return { jobId, outcome, cancel: () => this.#port.postMessage({ type: 'cancel', jobId }) };
   }
 
