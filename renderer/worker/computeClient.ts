@@ -1,5 +1,5 @@
 import type { FromWorker, TaskRequest, TaskResult, ToWorker } from './protocol.ts';
-import { withTransferableBytes } from './transferBytes.ts';
+import { bytesIn, COPY_STEP_BYTES, withTransferableBytes, withTransferableBytesInSteps } from './transferBytes.ts';
 
 /** The part of a Worker the client uses; tests connect it to a WorkerDispatcher directly. */
 export interface WorkerPort {
@@ -46,10 +46,29 @@ export class ComputeClient {
     const jobId = `job-${this.#nextJob++}`;
     const outcome = new Promise<JobOutcome>((settle) => this.#pending.set(jobId, { onProgress, settle }));
     // Byte arrays go over as transferred copies: the caller keeps its bytes, and the window's thread
-    // pays a memory copy, not a structured clone of a file that may be hundreds of megabytes.
-    const { message, transfer } = withTransferableBytes({ type: 'start', jobId, request } as ToWorker);
-    this.#port.postMessage(message, transfer);
-    return { jobId, outcome, cancel: () => this.#port.postMessage({ type: 'cancel', jobId }) };
+    // pays a memory copy, not a structured clone of a file that may be hundreds of megabytes. A
+    // large one is copied in steps first; a cancel meanwhile ends the job before it starts.
+    const start = { type: 'start', jobId, request } as ToWorker;
+    if (bytesIn(start) <= COPY_STEP_BYTES) {
+      const { message, transfer } = withTransferableBytes(start);
+      this.#port.postMessage(message, transfer);
+      return { jobId, outcome, cancel: () => this.#port.postMessage({ type: 'cancel', jobId }) };
+    }
+    let state: 'copying' | 'started' | 'cancelled' = 'copying';
+    void withTransferableBytesInSteps(start, () => new Promise<void>((resolve) => setTimeout(resolve, 0))).then(({ message, transfer }) => {
+      if (state === 'cancelled') return;
+      state = 'started';
+      this.#port.postMessage(message, transfer);
+    });
+    const cancel = (): void => {
+      if (state === 'started') this.#port.postMessage({ type: 'cancel', jobId });
+      else if (state === 'copying') {
+        state = 'cancelled';
+        this.#pending.get(jobId)?.settle({ kind: 'cancelled', done: 0 });
+        this.#pending.delete(jobId);
+      }
+    };
+    return { jobId, outcome, cancel };
   }
 
   #receive(message: FromWorker): void {

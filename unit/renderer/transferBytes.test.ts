@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { buffersIn, resultBytesOf, withTransferableBytes } from '../../renderer/worker/transferBytes.ts';
+import { buffersIn, bytesIn, COPY_STEP_BYTES, resultBytesOf, withTransferableBytes, withTransferableBytesInSteps } from '../../renderer/worker/transferBytes.ts';
 
 // What is checked: the window keeps its bytes and sends transferable copies of the same content;
 // nothing but byte arrays is copied; only a result's own `bytes` is handed over by the worker.
@@ -33,5 +33,21 @@ describe('byte arrays between the window and the worker', () => {
     expect(buffersIn(resultBytesOf({ kind: 'solve', series: kept }), 0)).toEqual([]);
     expect(buffersIn({ a: { b: kept } })).toEqual([kept.buffer]);
     expect(buffersIn({ a: { b: kept } }, 1)).toEqual([]);
+  });
+});
+
+describe('large byte arrays are copied in steps', () => {
+  test('withTransferableBytesInSteps gives the same content as a copy at once, yielding between steps', async () => {
+    const n = COPY_STEP_BYTES * 2 + 5;
+    const bytes = new Uint8Array(n);
+    for (let i = 0; i < n; i += 4099) bytes[i] = (i % 251) + 1;
+    let yields = 0;
+    const { message, transfer } = await withTransferableBytesInSteps({ request: { bytes, label: 'x' } }, async () => void yields++);
+    // ⌈n / step⌉ = 3 steps, so 2 yields between them.
+    expect(yields).toBe(2);
+    expect(message.request.bytes).toEqual(bytes);
+    expect(message.request.bytes.buffer).not.toBe(bytes.buffer);
+    expect(transfer).toEqual([message.request.bytes.buffer]);
+    expect(bytesIn(message)).toBe(n);
   });
 });
