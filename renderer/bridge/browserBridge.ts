@@ -35,7 +35,7 @@ export function createBrowserBridge(appVersion: string): ShellBridge {
 
     saveFile: async (request: SaveFileRequest) => {
       try {
-        downloadBytes(request.bytes, request.suggestedName);
+        await downloadBytes(request.bytes, request.suggestedName);
         return { kind: 'ok', value: { savedAs: request.suggestedName } };
       } catch (error) {
         return failure('Saving', error);
@@ -45,7 +45,7 @@ export function createBrowserBridge(appVersion: string): ShellBridge {
     // keepNewest cannot apply: the page cannot see or delete earlier downloads.
     writeBackup: async (request: BackupRequest): Promise<BridgeResult<BackupInfo>> => {
       try {
-        downloadBytes(request.bytes, request.fileName);
+        await downloadBytes(request.bytes, request.fileName);
         const info = { fileName: request.fileName, sizeBytes: request.bytes.byteLength, writtenUtc: new Date().toISOString() };
         return { kind: 'ok', value: info };
       } catch (error) {
