@@ -8,7 +8,7 @@ const HEADER = ['id', 'label', 'raDeg', 'decDeg', 'epochJyear', 'pmRaCosDecMasYr
  * The programme stars as H4's star list (FORMATS.md). The list has one id column: it carries the
  * record's `catalogueId`, and a star read back gets `id` = `catalogueId` (so records whose two ids
  * differ are refused here, with the star named). A radial velocity of 0 and a parallax error of 0
- * mean "unknown" in the records and are written as empty cells.
+ * (or NaN) mean "unknown" in the records and are written as empty cells.
  */
 export function writeStarFile(stars: readonly StarRecord[]): string {
   const rows = stars.map((star) => {
@@ -18,7 +18,8 @@ export function writeStarFile(stars: readonly StarRecord[]): string {
     return [
       star.catalogueId, star.label, numberText(star.raDeg, where), numberText(star.decDeg, where), numberText(star.catalogueEpochJulianYear, where),
       numberText(star.pmRaMasYr, where), numberText(star.pmDecMasYr, where), numberText(star.parallaxMas, where),
-      star.parallaxErrorMas === 0 ? '' : numberText(star.parallaxErrorMas, where),
+      // 0 is the records' "unknown"; NaN is how imports before 2026-12-02 stored it: unknown too.
+      star.parallaxErrorMas === 0 || Number.isNaN(star.parallaxErrorMas) ? '' : numberText(star.parallaxErrorMas, where),
       star.positionErrorMas === undefined ? '' : numberText(star.positionErrorMas, where),
       star.pmErrorMasYr === undefined ? '' : numberText(star.pmErrorMasYr, where),
       star.radialVelocityKmS === 0 ? '' : numberText(star.radialVelocityKmS, where),

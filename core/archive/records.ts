@@ -130,7 +130,7 @@ export interface StarRecord extends Importable, Audited {
   readonly pmDecMasYr: number;
   /** Annual parallax, mas (≥ 0 by physics; a catalogue may list small negatives, kept as given). */
   readonly parallaxMas: number;
-  /** Standard uncertainty of the parallax, mas. */
+  /** Standard uncertainty of the parallax, mas; 0 when unknown (NaN in stars imported before 2026-12-02, read as unknown too). */
   readonly parallaxErrorMas: number;
   /**
    * Stated standard uncertainty of the catalogue position at its epoch, per coordinate on the sky

@@ -5,17 +5,18 @@ import type { ArchiveDatabase } from '../store/database.ts';
 import { countRejectedRows, countsOf, type ImportPlan } from './importReport.ts';
 
 /**
- * A star list row as an archive record. An unknown proper motion, parallax or parallax error is
- * stored as NaN — unknown, never zero (FORMATS.md) — so that a reduction that needs it fails
- * visibly; an unknown radial velocity is 0 as records.ts prescribes (its effect on a star's
- * place is second order, common practice), and an unknown magnitude is null.
+ * A star list row as an archive record. An unknown proper motion or parallax is stored as NaN —
+ * unknown, never zero (FORMATS.md) — so that a reduction that needs it fails visibly; an unknown
+ * parallax error and radial velocity are 0, the records' "unknown" (records.ts; what the archive
+ * folder reads and writes for them: a parallax error of NaN made every nightly reduction of the
+ * archive refuse its star list), and an unknown magnitude is null.
  */
 export function starRecordFromRow(row: StarListRow, id: string, createdUtc: string, nowUtc: string): StarRecord {
   const unknownIsNaN = (value: number | null): number => value ?? Number.NaN;
   return {
     id, catalogueId: row.id, label: row.label === '' ? row.id : row.label, raDeg: row.raDeg, decDeg: row.decDeg,
     catalogueEpochJulianYear: row.epochJyear, pmRaMasYr: unknownIsNaN(row.pmRaCosDecMasYr), pmDecMasYr: unknownIsNaN(row.pmDecMasYr),
-    parallaxMas: unknownIsNaN(row.parallaxMas), parallaxErrorMas: unknownIsNaN(row.parallaxSigmaMas), ...statedErrors(row),
+    parallaxMas: unknownIsNaN(row.parallaxMas), parallaxErrorMas: row.parallaxSigmaMas ?? 0, ...statedErrors(row),
     radialVelocityKmS: row.radialVelocityKmS ?? 0, magnitude: row.magnitude, source: row.source, programmes: row.programmes,
     visibility: 'visible', createdUtc, updatedUtc: nowUtc,
   };
