@@ -8,8 +8,8 @@ import { SCHEMA_V3 } from './schemaV3.ts';
  * - the table `transits` (one record per transit) is replaced by `transitGroups`: up to 64
  *   transits of one star, close in time, per record (TransitGroupRecord in transitGroups.ts, the
  *   only module that reads or writes it). IndexedDB in Chromium costs about 55 µs for every record
- *   written whatever its size, so a million transits took about 95 s to import or restore as rows
- *   and take about 10 s as groups (measured, README "The archive at scale").
+ *   written whatever its size, so a million transits took about 90–100 s to write as rows (an
+ *   import or a restore) and take 12–15 s as groups (measured, README "The archive at scale").
  * - indexes: `[starId+firstUtcMjd]` (a star's time range), `*nightIds` (a night's transits) and
  *   `*importIds` (an import's), multi-entry over the distinct values of the group's transits.
  *
