@@ -116,7 +116,7 @@ export async function fillArchive(page: Page, base: string, transits: number): P
           const members = list.slice(start, start + GROUP_MAX_TRANSITS);
           groupRows.push({ id: `bench-group-${s}-${(first + start) / GROUP_MAX_TRANSITS}`, starId: star.id, firstUtcMjd: members[0].utcMjd,
             lastUtcMjd: members[members.length - 1].utcMjd, nightIds: [...new Set(members.map((t) => t.nightId))],
-            importIds: [...new Set(members.flatMap((t) => (typeof t.importId === 'string' ? [t.importId] : [])))], transits: members });
+            importIds: [...new Set(members.flatMap((t) => (typeof t.importId === 'string' ? [t.importId] : [])))], transitCount: members.length, transits: members });
         }
       }
       await write('nights', nightRows);

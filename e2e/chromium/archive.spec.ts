@@ -278,7 +278,7 @@ test('a 10,000-night archive: overview render and key-stage figures', async ({ p
     for (let start = 0; start < added.length; start += 64) {
       const transits = added.slice(start, start + 64);
       tx.objectStore('transitGroups').put({ id: `bench-group-${start / 64}`, starId: transits[0].starId, firstUtcMjd: transits[0].utcMjd,
-        lastUtcMjd: transits[transits.length - 1].utcMjd, nightIds: [...new Set(transits.map((t) => t.nightId))], importIds: [], transits });
+        lastUtcMjd: transits[transits.length - 1].utcMjd, nightIds: [...new Set(transits.map((t) => t.nightId))], importIds: [], transitCount: transits.length, transits });
     }
     await new Promise((resolve) => (tx.oncomplete = resolve));
     db.close();

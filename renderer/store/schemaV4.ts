@@ -10,8 +10,9 @@ import { SCHEMA_V3 } from './schemaV3.ts';
  *   only module that reads or writes it). IndexedDB in Chromium costs about 55 µs for every record
  *   written whatever its size, so a million transits took about 90–100 s to write as rows (an
  *   import or a restore) and take 12–15 s as groups (measured, README "The archive at scale").
- * - indexes: `[starId+firstUtcMjd]` (a star's time range), `*nightIds` (a night's transits) and
- *   `*importIds` (an import's), multi-entry over the distinct values of the group's transits.
+ * - indexes: `[starId+firstUtcMjd]` (a star's time range), `[starId+transitCount]` (a star's count
+ *   from index keys alone), `*nightIds` (a night's transits) and `*importIds` (an import's),
+ *   multi-entry over the distinct values of the group's transits.
  *
  * The transit rows themselves are unchanged, so a bundle holds the same `transits` rows as at
  * version 3. The upgrade from version 3 (upgradeToV4 in transitGroups.ts) groups every stored row.
@@ -19,5 +20,5 @@ import { SCHEMA_V3 } from './schemaV3.ts';
 export const SCHEMA_V4 = {
   ...SCHEMA_V3,
   transits: null,
-  transitGroups: 'id, [starId+firstUtcMjd], *nightIds, *importIds',
+  transitGroups: 'id, [starId+firstUtcMjd], [starId+transitCount], *nightIds, *importIds',
 } as const;

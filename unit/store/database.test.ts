@@ -56,7 +56,7 @@ describe('ArchiveDatabase schema version 1', () => {
       transitRow('t3', { nightId: 'n2', instrumentId: 'i2', utcMjd: 61_001.75 }),
     ]);
     expect((await transitsOfNight(database, 'n1')).map((t) => t.id)).toEqual(['t2', 't1']);
-    expect(database.transitGroups.schema.indexes.map((index) => index.name).sort()).toEqual(['[starId+firstUtcMjd]', 'importIds', 'nightIds']);
+    expect(database.transitGroups.schema.indexes.map((index) => index.name).sort()).toEqual(['[starId+firstUtcMjd]', '[starId+transitCount]', 'importIds', 'nightIds']);
     database.close();
   });
 
