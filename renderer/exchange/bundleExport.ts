@@ -59,7 +59,7 @@ export async function exportBundle(database: ArchiveDatabase, control: TaskContr
 }
 
 /** Small byte arrays gathered into blocks of about BLOCK_BYTES (a Blob of a million parts is slow to build). */
-class ByteBlocks implements ByteSink {
+export class ByteBlocks implements ByteSink {
   static readonly BLOCK_BYTES = 4 << 20;
   readonly #blocks: Uint8Array[] = [];
   #current = new Uint8Array(ByteBlocks.BLOCK_BYTES);

@@ -6,7 +6,8 @@ import type { ArchiveOpenFailure } from '../store/describeOpenFailure.ts';
 import { nowUtcIso } from '../store/nowUtcIso.ts';
 import { DERIVED_TABLES } from '../store/nightTallies.ts';
 import { backupFileName, DEFAULT_BACKUP_KEEP } from './automaticBackups.ts';
-import { gzipBytes } from './gzip.ts';
+import { gzipBlocks } from './gzip.ts';
+import { ByteBlocks } from './bundleExport.ts';
 
 /**
  * A bundle of an archive still at an older schema, read BEFORE the code's schema upgrades it.
@@ -15,26 +16,41 @@ import { gzipBytes } from './gzip.ts';
  * they are on disk and changes nothing), exported, closed, and only then opened by the app's
  * ArchiveDatabase, which upgrades it. The bundle's header carries the OLD schema version, so a
  * restore runs the same upgrade again. Staged rows of unfinished imports are left out, as in
- * exportBundle. Runs on the calling thread (the worker would open, and so upgrade, the database).
+ * exportBundle. Transits stored in groups (schema 4 on) are written as the bundle's `transits`
+ * rows, in id order, as exportBundle writes them. Rows are serialised line by line into blocks,
+ * never into one string (a million transits pass V8's longest string). Runs on the calling
+ * thread (the worker would open, and so upgrade, the database).
  */
 export async function exportOldArchive(name: string, fromSchemaVersion: number, createdUtc: string, producer: string): Promise<Uint8Array> {
   const old = new Dexie(name);
   await old.open();
   try {
     if (old.verno !== fromSchemaVersion) throw new Error(`the archive on disk is at schema ${old.verno}, not ${fromSchemaVersion} as expected`);
-    const tables = old.tables.filter((t) => !DERIVED_TABLES.includes(t.name)).sort((a, b) => a.name.localeCompare(b.name));
+    const tables = old.tables.filter((t) => !DERIVED_TABLES.includes(t.name));
     const snapshot = await old.transaction('r', tables, () => Promise.all(tables.map((t) => t.toArray())));
+    const named = tables.map((table, k) => (table.name === GROUPED_TRANSITS
+      ? { name: 'transits', rows: flattenGroups(snapshot[k] as readonly { transits: readonly { id: string }[] }[]) }
+      : { name: table.name, rows: snapshot[k] })).sort((a, b) => a.name.localeCompare(b.name));
     const writer = new BundleWriter({ schemaVersion: fromSchemaVersion, createdUtc, producer });
-    const parts = [writer.start()];
-    for (const [k, table] of tables.entries()) {
-      parts.push(writer.beginTable(table.name));
-      for (const row of snapshot[k]) if ((row as { visibility?: string }).visibility !== 'staged') parts.push(writer.row(row));
+    const blocks = new ByteBlocks();
+    blocks.push(encodeUtf8(writer.start()));
+    for (const { name, rows } of named) {
+      blocks.push(encodeUtf8(writer.beginTable(name)));
+      for (const row of rows) if ((row as { visibility?: string }).visibility !== 'staged') writer.rowInto(row, blocks);
     }
-    parts.push(writer.finish());
-    return await gzipBytes(encodeUtf8(parts.join('')));
+    blocks.push(encodeUtf8(writer.finish()));
+    return await gzipBlocks(blocks.finish());
   } finally {
     old.close();
   }
+}
+
+/** The table that holds transits in groups from schema 4 on (renderer/store/transitGroups.ts). */
+const GROUPED_TRANSITS = 'transitGroups';
+
+/** The transit rows of stored groups, in id order. */
+function flattenGroups(groups: readonly { transits: readonly { id: string }[] }[]): unknown[] {
+  return groups.flatMap((g) => g.transits).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
 }
 
 /** Called by openArchive when the archive on disk is older than the code; a failure stops the upgrade. */

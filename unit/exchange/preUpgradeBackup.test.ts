@@ -1,10 +1,11 @@
 import { Dexie } from 'dexie';
 import { describe, expect, test } from 'vitest';
 import type { BackupRequest, BridgeResult, BackupInfo, ShellInfo } from '../../core/bridge.ts';
-import { verifyBundle } from '../../renderer/exchange/bundleRestore.ts';
-import { backupBeforeUpgrade } from '../../renderer/exchange/preUpgradeBackup.ts';
+import { restoreBundle, verifyBundle } from '../../renderer/exchange/bundleRestore.ts';
+import { addTransits, allTransits } from '../../renderer/store/transitGroups.ts';
+import { backupBeforeUpgrade, exportOldArchive } from '../../renderer/exchange/preUpgradeBackup.ts';
 import { openArchive } from '../../renderer/store/openArchive.ts';
-import { ARCHIVE_SCHEMA_VERSION } from '../../renderer/store/database.ts';
+import { ArchiveDatabase, ARCHIVE_SCHEMA_VERSION } from '../../renderer/store/database.ts';
 import { SCHEMA_V1 } from '../../renderer/store/schemaV1.ts';
 import { siteRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 import { watchingControl } from './exchangeFixtures.ts';
@@ -50,6 +51,24 @@ describe('a backup before the schema upgrade (desktop app)', () => {
     expect(bundle.rows.get('transits')?.map((r) => (r as { id: string }).id)).toEqual(['t1']);
     expect(Object.is((bundle.rows.get('stars')?.[0] as { parallaxMas: number }).parallaxMas, 0.1 + 0.2)).toBe(true);
     opened.database.close();
+  });
+
+  test('an archive whose transits are in groups (v4) is bundled with them as transit rows, which restore unchanged', async () => {
+    const name = uniqueDatabaseName('pre-upgrade-v4');
+    const current = new ArchiveDatabase(name);
+    const rows = Array.from({ length: 70 }, (_, k) => transitRow(`t-${String(k).padStart(2, '0')}`, { utcMjd: 61_000 + k / 10, note: k === 3 ? 'é ☁' : '' }));
+    await current.transaction('rw', current.transitGroups, () => addTransits(current, rows));
+    await current.sites.put(siteRow('s1'));
+    current.close();
+    // As a later build would before its upgrade from version 4: the old archive as it is on disk.
+    const bytes = await exportOldArchive(name, 4, '2026-12-02T00:00:00.000Z', 'test');
+    const target = new ArchiveDatabase(uniqueDatabaseName('pre-upgrade-v4-target'));
+    const bundle = await verifyBundle(target, bytes, watchingControl(() => {}));
+    expect(bundle.manifest.tables.map((t) => t.name)).toContain('transits');
+    expect(bundle.manifest.tables.map((t) => t.name)).not.toContain('transitGroups');
+    await restoreBundle(target, bundle, 'into-empty');
+    expect(await allTransits(target)).toStrictEqual(rows);
+    target.close();
   });
 
   test('a failed backup leaves the archive at version 1 and says why', async () => {
