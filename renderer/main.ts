@@ -11,6 +11,7 @@ import { selectBridge } from './bridge/selectBridge.ts';
 import { backupBeforeUpgrade } from './exchange/preUpgradeBackup.ts';
 import { runStartupBackups } from './exchange/startupBackups.svelte.ts';
 import { ARCHIVE_DATABASE_NAME } from './store/database.ts';
+import { startExchangeJob } from './exchange/exchangeJobs.ts';
 
 function localStorageOrNull(): Storage | null {
   try {
@@ -34,7 +35,12 @@ const loadDemo = !new URLSearchParams(window.location.search).has('no-demo');
 const bridge = selectBridge(window, __APP_VERSION__);
 const worker = new Worker(new URL('./worker/compute.worker.ts', import.meta.url), { type: 'module' });
 const compute = new ComputeClient(worker);
-void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined, backupBeforeUpgrade(ARCHIVE_DATABASE_NAME, bridge)).then(async () => {
+// A schema upgrade runs in the worker (it opens the archive there first), never on this thread.
+const upgradeInWorker = async (databaseName: string): Promise<void> => {
+  const outcome = await startExchangeJob(compute, { kind: 'archive-upgrade', databaseName }, () => {}).outcome;
+  if (outcome.kind !== 'finished') throw new Error(outcome.kind === 'failed' ? outcome.message : 'the upgrade was cancelled');
+};
+void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined, backupBeforeUpgrade(ARCHIVE_DATABASE_NAME, bridge), upgradeInWorker).then(async () => {
   // Daily backup, or the offer to restore the newest backup into an empty archive (Exchange view).
   if (archive.database !== null && (await runStartupBackups(archive.database, compute, bridge))) router.go('exchange');
 });

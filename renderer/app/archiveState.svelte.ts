@@ -28,9 +28,14 @@ export class ArchiveState {
    * `beforeUpgrade` runs when the archive on disk is older than this build (the desktop app backs
    * the old archive up there, renderer/exchange/preUpgradeBackup.ts).
    */
-  async start(storage: StorageManagerLike | undefined, databaseName?: string, fetchDemo?: () => Promise<Uint8Array>, beforeUpgrade?: BeforeUpgrade): Promise<void> {
+  async start(
+    storage: StorageManagerLike | undefined, databaseName?: string, fetchDemo?: () => Promise<Uint8Array>, beforeUpgrade?: BeforeUpgrade,
+    /** Runs a schema upgrade off this thread (the app: a worker job) before the archive is opened here. */
+    upgradeElsewhere?: (databaseName: string) => Promise<void>,
+  ): Promise<void> {
     this.databaseName = databaseName ?? ARCHIVE_DATABASE_NAME;
-    const result = await openArchive(this.databaseName, beforeUpgrade, (from, to) => (this.upgrading = { from, to }));
+    const name = this.databaseName;
+    const result = await openArchive(name, beforeUpgrade, (from, to) => (this.upgrading = { from, to }), upgradeElsewhere === undefined ? undefined : () => upgradeElsewhere(name));
     this.upgrading = null;
     if (result.kind === 'open') {
       this.sweptImports = await sweepInterruptedImports(result.database, nowUtcIso());

@@ -32,7 +32,9 @@ export type ExchangeRequest =
   | { readonly kind: 'bundle-verify'; readonly databaseName: string; readonly bytes: Uint8Array }
   | { readonly kind: 'bundle-restore'; readonly databaseName: string; readonly bytes: Uint8Array; readonly mode: RestoreMode }
   | { readonly kind: 'iers-import'; readonly databaseName: string; readonly fileName: string; readonly bytes: Uint8Array }
-  | { readonly kind: 'table-export'; readonly databaseName: string; readonly table: CsvTableName };
+  | { readonly kind: 'table-export'; readonly databaseName: string; readonly table: CsvTableName }
+  /** Opens the archive here, so a schema upgrade it needs runs in the worker, not in the window. */
+  | { readonly kind: 'archive-upgrade'; readonly databaseName: string };
 
 export type ExchangeResult =
   | { readonly kind: 'exchange-validate'; readonly report: ImportReport }
@@ -45,9 +47,10 @@ export type ExchangeResult =
     }
   | { readonly kind: 'bundle-restore'; readonly rowCounts: Readonly<Record<string, number>> }
   | { readonly kind: 'iers-import'; readonly what: 'leap-seconds' | 'earth-orientation'; readonly summary: string }
-  | { readonly kind: 'table-export'; readonly table: CsvTableName; readonly bytes: Uint8Array; readonly rows: number };
+  | { readonly kind: 'table-export'; readonly table: CsvTableName; readonly bytes: Uint8Array; readonly rows: number }
+  | { readonly kind: 'archive-upgrade'; readonly schemaVersion: number };
 
-export const EXCHANGE_KINDS: readonly ExchangeRequest['kind'][] = ['exchange-validate', 'exchange-import', 'bundle-export', 'bundle-verify', 'bundle-restore', 'iers-import', 'table-export'];
+export const EXCHANGE_KINDS: readonly ExchangeRequest['kind'][] = ['exchange-validate', 'exchange-import', 'bundle-export', 'bundle-verify', 'bundle-restore', 'iers-import', 'table-export', 'archive-upgrade'];
 
 export function isExchangeKind(kind: string): kind is ExchangeRequest['kind'] {
   return (EXCHANGE_KINDS as readonly string[]).includes(kind);
@@ -128,13 +131,20 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
       return runIersImport(database, request.fileName, request.bytes);
     case 'table-export':
       return { kind: request.kind, table: request.table, ...(await tableCsvBytes(database, request.table, control)) };
+    case 'archive-upgrade': {
+      const clock = new StageClock('schema upgrade');
+      await database.open();
+      clock.lap(`open (and upgrade) to schema ${database.verno}`);
+      clock.log();
+      return { kind: request.kind, schemaVersion: database.verno };
+    }
   }
 }
 
 const ACTIONS: Readonly<Record<ExchangeRequest['kind'], string>> = {
   'exchange-validate': 'Checking the file', 'exchange-import': 'The import', 'bundle-export': 'The export',
   'bundle-verify': 'Checking the bundle', 'bundle-restore': 'The restore', 'iers-import': 'The IERS import',
-  'table-export': 'The table export',
+  'table-export': 'The table export', 'archive-upgrade': 'The archive upgrade',
 };
 
 /**
