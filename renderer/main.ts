@@ -40,7 +40,14 @@ const upgradeInWorker = async (databaseName: string): Promise<void> => {
   const outcome = await startExchangeJob(compute, { kind: 'archive-upgrade', databaseName }, () => {}).outcome;
   if (outcome.kind !== 'finished') throw new Error(outcome.kind === 'failed' ? outcome.message : 'the upgrade was cancelled');
 };
-void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined, backupBeforeUpgrade(ARCHIVE_DATABASE_NAME, bridge), upgradeInWorker).then(async () => {
+// So does the desktop app's backup of the old archive before it (a million transits read and bundled).
+const exportOldInWorker = async (databaseName: string, fromSchemaVersion: number, createdUtc: string, producer: string): Promise<Uint8Array> => {
+  const outcome = await startExchangeJob(compute, { kind: 'archive-export-old', databaseName, fromSchemaVersion, createdUtc, producer }, () => {}).outcome;
+  if (outcome.kind !== 'finished') throw new Error(outcome.kind === 'failed' ? outcome.message : 'the backup was cancelled');
+  return outcome.result.bytes;
+};
+const beforeUpgrade = backupBeforeUpgrade(ARCHIVE_DATABASE_NAME, bridge, exportOldInWorker);
+void archive.start(navigator.storage, undefined, loadDemo ? fetchBundledDemo : undefined, beforeUpgrade, upgradeInWorker).then(async () => {
   // Daily backup, or the offer to restore the newest backup into an empty archive (Exchange view).
   if (archive.database !== null && (await runStartupBackups(archive.database, compute, bridge))) router.go('exchange');
 });

@@ -18,8 +18,8 @@ import { ByteBlocks } from './bundleExport.ts';
  * restore runs the same upgrade again. Staged rows of unfinished imports are left out, as in
  * exportBundle. Transits stored in groups (schema 4 on) are written as the bundle's `transits`
  * rows, in id order, as exportBundle writes them. Rows are serialised line by line into blocks,
- * never into one string (a million transits pass V8's longest string). Runs on the calling
- * thread (the worker would open, and so upgrade, the database).
+ * never into one string (a million transits pass V8's longest string). Dynamic mode never
+ * upgrades, so it may run in the worker (the app does: `archive-export-old` job).
  */
 export async function exportOldArchive(name: string, fromSchemaVersion: number, createdUtc: string, producer: string): Promise<Uint8Array> {
   const old = new Dexie(name);
@@ -62,13 +62,17 @@ export type BeforeUpgrade = (fromSchemaVersion: number) => Promise<ArchiveOpenFa
  * upgrade (the old archive is left exactly as it was) and say so. In the browser nothing is
  * written: the browser keeps no backup folder.
  */
-export function backupBeforeUpgrade(name: string, bridge: Pick<ShellBridge, 'info' | 'writeBackup'>): BeforeUpgrade {
+export function backupBeforeUpgrade(
+  name: string, bridge: Pick<ShellBridge, 'info' | 'writeBackup'>,
+  /** Where the old archive is read and bundled: exportOldArchive on this thread unless given (the app: in the worker). */
+  exportOld: typeof exportOldArchive = exportOldArchive,
+): BeforeUpgrade {
   return async (fromSchemaVersion) => {
     try {
       const info = await bridge.info();
       if (!info.automaticBackups) return null;
       const createdUtc = nowUtcIso();
-      const bytes = await exportOldArchive(name, fromSchemaVersion, createdUtc, `meridian-ledger ${info.appVersion} (before upgrade)`);
+      const bytes = await exportOld(name, fromSchemaVersion, createdUtc, `meridian-ledger ${info.appVersion} (before upgrade)`);
       const written = await bridge.writeBackup({ fileName: backupFileName(createdUtc, { beforeUpgradeFrom: fromSchemaVersion }), bytes, keepNewest: DEFAULT_BACKUP_KEEP });
       if (written.kind === 'ok') return null;
       throw new Error(written.kind === 'failed' ? written.message : 'the write was cancelled');

@@ -9,6 +9,8 @@ import { ArchiveDatabase, ARCHIVE_SCHEMA_VERSION } from '../../renderer/store/da
 import { SCHEMA_V1 } from '../../renderer/store/schemaV1.ts';
 import { siteRow, starRow, transitRow, uniqueDatabaseName } from '../store/rowFactories.ts';
 import { watchingControl } from './exchangeFixtures.ts';
+import { runExchangeTask } from '../../renderer/worker/tasks/exchangeTasks.ts';
+import { UNCONTROLLED } from '../../core/task/task-control.ts';
 
 async function versionOneArchive(name: string) {
   const shipped = new Dexie(name);
@@ -69,6 +71,21 @@ describe('a backup before the schema upgrade (desktop app)', () => {
     await restoreBundle(target, bundle, 'into-empty');
     expect(await allTransits(target)).toStrictEqual(rows);
     target.close();
+  });
+
+  test('the worker job bundles the old archive without upgrading it', async () => {
+    const name = uniqueDatabaseName('pre-upgrade-worker');
+    await versionOneArchive(name);
+    const result = await runExchangeTask({ kind: 'archive-export-old', databaseName: name, fromSchemaVersion: 1, createdUtc: '2026-12-02T00:00:00.000Z', producer: 'test' }, UNCONTROLLED);
+    expect((await indexedDB.databases()).find((d) => d.name === name)?.version).toBe(10);
+    if (result.kind !== 'archive-export-old') throw new Error(`unexpected ${result.kind}`);
+    const shell = recordingShell(ELECTRON);
+    const opened = await openArchive(name, backupBeforeUpgrade(name, shell.bridge, async () => result.bytes));
+    if (opened.kind !== 'open') throw new Error('expected the archive to open');
+    const bundle = await verifyBundle(opened.database, shell.writes[0].bytes, watchingControl(() => {}));
+    expect(bundle.header.schemaVersion).toBe(1);
+    expect(bundle.rows.get('transits')?.map((r) => (r as { id: string }).id)).toEqual(['t1']);
+    opened.database.close();
   });
 
   test('a failed backup leaves the archive at version 1 and says why', async () => {

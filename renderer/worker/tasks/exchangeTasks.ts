@@ -10,6 +10,7 @@ import type { ImportReport } from '../../exchange/importReport.ts';
 import { beginImport, writeImport, type WriteImportOptions } from '../../exchange/stagedWriter.ts';
 import { describeStorageError } from '../../exchange/describeStorageError.ts';
 import { tableCsvBytes } from '../../exchange/tableExports.ts';
+import { exportOldArchive } from '../../exchange/preUpgradeBackup.ts';
 import { StageClock } from '../../exchange/stageClock.ts';
 import { forgetParsedLog } from '../../exchange/parsedLogCache.ts';
 import { forgetVerifiedBundle, verifyBundleOnce } from '../../exchange/verifiedBundleCache.ts';
@@ -34,7 +35,9 @@ export type ExchangeRequest =
   | { readonly kind: 'iers-import'; readonly databaseName: string; readonly fileName: string; readonly bytes: Uint8Array }
   | { readonly kind: 'table-export'; readonly databaseName: string; readonly table: CsvTableName }
   /** Opens the archive here, so a schema upgrade it needs runs in the worker, not in the window. */
-  | { readonly kind: 'archive-upgrade'; readonly databaseName: string };
+  | { readonly kind: 'archive-upgrade'; readonly databaseName: string }
+  /** A bundle of the archive as it is on disk, at its older schema, before the upgrade (preUpgradeBackup.ts). */
+  | { readonly kind: 'archive-export-old'; readonly databaseName: string; readonly fromSchemaVersion: number; readonly createdUtc: string; readonly producer: string };
 
 export type ExchangeResult =
   | { readonly kind: 'exchange-validate'; readonly report: ImportReport }
@@ -48,9 +51,10 @@ export type ExchangeResult =
   | { readonly kind: 'bundle-restore'; readonly rowCounts: Readonly<Record<string, number>> }
   | { readonly kind: 'iers-import'; readonly what: 'leap-seconds' | 'earth-orientation'; readonly summary: string }
   | { readonly kind: 'table-export'; readonly table: CsvTableName; readonly bytes: Uint8Array; readonly rows: number }
-  | { readonly kind: 'archive-upgrade'; readonly schemaVersion: number };
+  | { readonly kind: 'archive-upgrade'; readonly schemaVersion: number }
+  | { readonly kind: 'archive-export-old'; readonly bytes: Uint8Array };
 
-export const EXCHANGE_KINDS: readonly ExchangeRequest['kind'][] = ['exchange-validate', 'exchange-import', 'bundle-export', 'bundle-verify', 'bundle-restore', 'iers-import', 'table-export', 'archive-upgrade'];
+export const EXCHANGE_KINDS: readonly ExchangeRequest['kind'][] = ['exchange-validate', 'exchange-import', 'bundle-export', 'bundle-verify', 'bundle-restore', 'iers-import', 'table-export', 'archive-upgrade', 'archive-export-old'];
 
 export function isExchangeKind(kind: string): kind is ExchangeRequest['kind'] {
   return (EXCHANGE_KINDS as readonly string[]).includes(kind);
@@ -131,6 +135,8 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
       return runIersImport(database, request.fileName, request.bytes);
     case 'table-export':
       return { kind: request.kind, table: request.table, ...(await tableCsvBytes(database, request.table, control)) };
+    case 'archive-export-old':
+      throw new Error('archive-export-old runs without the archive database (runExchangeTask)');
     case 'archive-upgrade': {
       const clock = new StageClock('schema upgrade');
       await database.open();
@@ -144,7 +150,7 @@ async function runWith(database: ArchiveDatabase, request: ExchangeRequest, cont
 const ACTIONS: Readonly<Record<ExchangeRequest['kind'], string>> = {
   'exchange-validate': 'Checking the file', 'exchange-import': 'The import', 'bundle-export': 'The export',
   'bundle-verify': 'Checking the bundle', 'bundle-restore': 'The restore', 'iers-import': 'The IERS import',
-  'table-export': 'The table export', 'archive-upgrade': 'The archive upgrade',
+  'table-export': 'The table export', 'archive-upgrade': 'The archive upgrade', 'archive-export-old': 'The backup before the upgrade',
 };
 
 /**
@@ -152,6 +158,11 @@ const ACTIONS: Readonly<Record<ExchangeRequest['kind'], string>> = {
  * worker opens its own connection and closes it at the end, whatever happens).
  */
 export async function runExchangeTask(request: ExchangeRequest, control: TaskControl): Promise<ExchangeResult> {
+  if (request.kind === 'archive-export-old') {
+    // Never through ArchiveDatabase: opening it would upgrade the archive before it is backed up.
+    const { databaseName, fromSchemaVersion, createdUtc, producer } = request;
+    return { kind: request.kind, bytes: await exportOldArchive(databaseName, fromSchemaVersion, createdUtc, producer) };
+  }
   const database = new ArchiveDatabase(request.databaseName);
   try {
     return await runWith(database, request, control);
