@@ -12,6 +12,13 @@
  * is refused. Readers refuse a newer formatVersion with a message naming both versions.
  */
 export const BUNDLE_FORMAT = 'meridian-ledger-bundle';
+
+/**
+ * A table a bundle may carry that is not part of the archive: a simulated archive's known truth
+ * (one row), which `bundle pack` keeps so that `bundle unpack` writes truth.json again. The app
+ * checks it with the rest and does not restore it (it keeps no truth).
+ */
+export const SIMULATION_TRUTH_TABLE = 'simulationTruth';
 export const BUNDLE_FORMAT_VERSION = 1;
 
 export interface BundleHeader {

@@ -7,7 +7,7 @@
 import type { ArchiveContent } from '../../core/archive-folder/archive-folder.ts';
 import { readArchiveFolder, writeArchiveFolder } from '../../core/archive-folder/archive-folder.ts';
 import type { FolderRejection } from '../../core/archive-folder/folder-text.ts';
-import { BundleError } from '../../core/archive/bundle-format.ts';
+import { BundleError, SIMULATION_TRUTH_TABLE } from '../../core/archive/bundle-format.ts';
 import { BundleWriter } from '../../core/archive/bundle-writer.ts';
 import { readArchiveFolderFiles, writeArchiveFolderFiles } from './archive-folder-files.ts';
 import { readBundleFile, writeBundleFile } from './bundle-file.ts';
@@ -15,7 +15,7 @@ import { readBundleFile, writeBundleFile } from './bundle-file.ts';
 /** Schema version of the store whose tables the bundle carries (renderer/store/schemaV1.ts). */
 export const BUNDLE_SCHEMA_VERSION = 1;
 /** Table holding a simulated archive's known truth (one row), so unpack can write truth.json again. */
-export const TRUTH_TABLE = 'simulationTruth';
+export const TRUTH_TABLE = SIMULATION_TRUTH_TABLE;
 
 const TABLE_ORDER = ['sites', 'instruments', 'instrumentEvents', 'stars', 'nights', 'transits'] as const;
 

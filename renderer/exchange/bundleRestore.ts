@@ -1,4 +1,4 @@
-import { BundleError, type BundleHeader, type BundleManifest } from '../../core/archive/bundle-format.ts';
+import { BundleError, SIMULATION_TRUTH_TABLE, type BundleHeader, type BundleManifest } from '../../core/archive/bundle-format.ts';
 import { BundleReader } from '../../core/archive/bundle-reader.ts';
 import { decodeUtf8 } from '../../core/formats/utf8.ts';
 import { TaskCancelledError, UNCONTROLLED, type TaskControl } from '../../core/task/task-control.ts';
@@ -27,7 +27,7 @@ const VERIFY_CHUNK_LINES = 5_000;
  */
 export async function verifyBundle(database: ArchiveDatabase, bytes: Uint8Array, control: TaskControl): Promise<VerifiedBundle> {
   const inflated = await gunzipBytes(bytes);
-  const known = new Set(archiveTableNames(database));
+  const known = new Set([...archiveTableNames(database), SIMULATION_TRUTH_TABLE]);
   const rows = new Map<string, unknown[]>();
   const reader = new BundleReader((table, row) => {
     let list = rows.get(table);
@@ -132,7 +132,7 @@ const RESTORE_CHUNK_ROWS = 10_000;
  */
 export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedBundle, mode: RestoreMode, control: TaskControl = UNCONTROLLED): Promise<Record<string, number>> {
   const counts: Record<string, number> = {};
-  const total = [...bundle.rows.values()].reduce((sum, rows) => sum + rows.length, 0);
+  const total = [...bundle.rows].reduce((sum, [name, rows]) => sum + (name === SIMULATION_TRUTH_TABLE ? 0 : rows.length), 0);
   let done = 0;
   await database.transaction('rw', database.tables, async () => {
     if (mode === 'into-empty') {
@@ -147,6 +147,7 @@ export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedB
     // the host in here (a timer would let IndexedDB commit early); cancel arrives meanwhile.
     requireDistinctTransitIds((bundle.rows.get(TRANSITS) ?? []) as readonly TransitRecord[]);
     for (const [name, asStored] of bundle.rows) {
+      if (name === SIMULATION_TRUTH_TABLE) continue; // checked, not restored: the archive keeps no truth
       const rows = name === TRANSITS ? inGroupingOrder(asStored as readonly TransitRecord[]) : asStored;
       for (let start = 0; start < rows.length; start += RESTORE_CHUNK_ROWS) {
         if (control.cancellation.isCancelled) throw new TaskCancelledError('the restore', done);
