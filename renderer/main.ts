@@ -37,7 +37,7 @@ const worker = new Worker(new URL('./worker/compute.worker.ts', import.meta.url)
 const compute = new ComputeClient(worker);
 // A schema upgrade runs in the worker (it opens the archive there first), never on this thread.
 const upgradeInWorker = async (databaseName: string): Promise<void> => {
-  const outcome = await startExchangeJob(compute, { kind: 'archive-upgrade', databaseName }, () => {}).outcome;
+  const outcome = await startExchangeJob(compute, { kind: 'archive-upgrade', databaseName }, (done, total) => (archive.upgradeProgress = { done, total })).outcome;
   if (outcome.kind !== 'finished') throw new Error(outcome.kind === 'failed' ? outcome.message : 'the upgrade was cancelled');
 };
 // So does the desktop app's backup of the old archive before it (a million transits read and bundled).

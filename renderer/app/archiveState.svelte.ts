@@ -19,6 +19,8 @@ export class ArchiveState {
   demoFailure = $state('');
   /** While an older archive is upgraded at open: from and to which schema version; null otherwise. */
   upgrading = $state.raw<{ readonly from: number; readonly to: number } | null>(null);
+  /** How far that upgrade has got, when the code running it says (transits read and written); null otherwise. */
+  upgradeProgress = $state.raw<{ readonly done: number; readonly total: number } | null>(null);
   /** The IndexedDB database the archive is (being) opened from. */
   databaseName = $state(ARCHIVE_DATABASE_NAME);
 
@@ -37,6 +39,7 @@ export class ArchiveState {
     const name = this.databaseName;
     const result = await openArchive(name, beforeUpgrade, (from, to) => (this.upgrading = { from, to }), upgradeElsewhere === undefined ? undefined : () => upgradeElsewhere(name));
     this.upgrading = null;
+    this.upgradeProgress = null;
     if (result.kind === 'open') {
       this.sweptImports = await sweepInterruptedImports(result.database, nowUtcIso());
       if (fetchDemo !== undefined) {

@@ -47,12 +47,17 @@ export class ArchiveDatabase extends Dexie {
   /** Derived (schema v3): one tally per night, kept true by every write of transits. */
   nightTallies!: EntityTable<NightTallyRecord, 'nightId'>;
 
-  /** `name` is ARCHIVE_DATABASE_NAME in the app; tests pass a unique name each. */
-  constructor(name: string = ARCHIVE_DATABASE_NAME) {
+  /**
+   * `name` is ARCHIVE_DATABASE_NAME in the app; tests pass a unique name each. `onUpgradeProgress`
+   * hears how far an upgrade that reads every transit has got (the worker posts it to the window's
+   * banner: a message is sent at once, even while the upgrade's transaction holds the worker).
+   */
+  constructor(name: string = ARCHIVE_DATABASE_NAME, options: { readonly onUpgradeProgress?: (done: number, total: number) => void } = {}) {
     super(name);
+    const progress = options.onUpgradeProgress ?? (() => {});
     this.version(1).stores(SCHEMA_V1);
     this.version(2).stores(SCHEMA_V2);
     this.version(3).stores(SCHEMA_V3).upgrade(upgradeToV3);
-    this.version(4).stores(SCHEMA_V4).upgrade(upgradeToV4);
+    this.version(4).stores(SCHEMA_V4).upgrade((transaction) => upgradeToV4(transaction, progress));
   }
 }

@@ -284,22 +284,32 @@ const UPGRADE_PAGE_ROWS = 20_000;
 /**
  * The version 4 upgrade (schemaV4.ts): reads the version 3 `transits` table page by page in
  * primary-key order and writes its rows, unchanged, as groups; the old table is then dropped by
- * the schema. Every row is kept, whatever its visibility.
+ * the schema. Every row is kept, whatever its visibility. `onProgress` hears transits read, then
+ * transits written, out of twice the table's rows.
  */
-export async function upgradeToV4(transaction: Transaction): Promise<void> {
+export async function upgradeToV4(transaction: Transaction, onProgress: (done: number, total: number) => void = () => {}): Promise<void> {
   const rows = transaction.table('transits');
   const groups = transaction.table('transitGroups');
+  const total = 2 * (await rows.count());
+  onProgress(0, total);
   // Groups are cut per star and time over the whole table, so rows are gathered first (as
   // records, not strings: a million transits is a few hundred megabytes at most).
   const all: TransitRecord[] = [];
   let page = (await rows.limit(UPGRADE_PAGE_ROWS).toArray()) as TransitRecord[];
   while (page.length > 0) {
     for (const t of page) all.push(t);
+    onProgress(all.length, total);
     if (page.length < UPGRADE_PAGE_ROWS) break;
     page = (await rows.where(':id').above((page.at(-1) as TransitRecord).id).limit(UPGRADE_PAGE_ROWS).toArray()) as TransitRecord[];
   }
   const cut = groupTransits(all);
-  for (let start = 0; start < cut.length; start += 1_000) await groups.bulkAdd(cut.slice(start, start + 1_000));
+  let written = 0;
+  for (let start = 0; start < cut.length; start += 1_000) {
+    const chunk = cut.slice(start, start + 1_000);
+    await groups.bulkAdd(chunk);
+    written += chunk.reduce((sum, g) => sum + g.transits.length, 0);
+    onProgress(all.length + written, total);
+  }
 }
 
 /** Rewrites the transits an import wrote through `change` (same id, star and time); returns how many. */

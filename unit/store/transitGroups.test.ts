@@ -122,9 +122,14 @@ describe('the version 4 upgrade', () => {
     }));
     await old.table('transits').bulkAdd(rows);
     old.close();
-    const database = new ArchiveDatabase(name);
+    const progress: [number, number][] = [];
+    const database = new ArchiveDatabase(name, { onUpgradeProgress: (done, total) => progress.push([done, total]) });
     await database.open();
     expect(database.verno).toBe(4);
+    // Read in pages of 20,000 (20,000 then 20,050), then written: out of 2 × 20,050, ending at the total, never going back.
+    expect(progress.slice(0, 3)).toEqual([[0, 40_100], [20_000, 40_100], [20_050, 40_100]]);
+    expect(progress.at(-1)).toEqual([40_100, 40_100]);
+    expect(progress.every(([done], k) => k === 0 || done >= progress[k - 1][0])).toBe(true);
     expect(database.tables.map((t) => t.name)).not.toContain('transits');
     expect(await allTransits(database)).toStrictEqual([...rows].sort((a, b) => (a.id < b.id ? -1 : 1)));
     // 10,025 transits a star over 20.05 days: ⌈10025 / 64⌉ = 157 groups each.

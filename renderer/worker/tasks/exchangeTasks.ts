@@ -163,7 +163,8 @@ export async function runExchangeTask(request: ExchangeRequest, control: TaskCon
     const { databaseName, fromSchemaVersion, createdUtc, producer } = request;
     return { kind: request.kind, bytes: await exportOldArchive(databaseName, fromSchemaVersion, createdUtc, producer) };
   }
-  const database = new ArchiveDatabase(request.databaseName);
+  // An upgrade's progress (transits read and written) goes to the window's banner as the job's.
+  const database = new ArchiveDatabase(request.databaseName, request.kind === 'archive-upgrade' ? { onUpgradeProgress: (done, total) => control.reportProgress(done, total) } : {});
   try {
     return await runWith(database, request, control);
   } catch (error) {
