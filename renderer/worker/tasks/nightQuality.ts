@@ -25,8 +25,13 @@ export interface NightQualityResult {
   readonly reduced: number;
 }
 
-/** Nights per chunk: one folder round trip, then a yield so a cancel and the UI's messages get in. */
-export const NIGHT_QUALITY_CHUNK = 20;
+/**
+ * Nights per chunk: one folder round trip, then a yield so a cancel and the UI's messages get in.
+ * 60 rather than 20 reads each transit group (up to 64 nights) about once instead of three times:
+ * a simulated 1,045-night archive took 10.2 s instead of 11.2 s in headless Chromium; a chunk is
+ * about 0.6 s of work, the longest a cancel waits.
+ */
+export const NIGHT_QUALITY_CHUNK = 60;
 
 /**
  * The per-session cache, one per database name, held in the worker: it lives as long as the app
@@ -90,7 +95,11 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
       stamps = await readNightStamps(database, nights, ledger);
     }
     const keys = new Map(nights.map((n) => [n.id, nightStampKey(contextKey, n, stamps.tallies.get(n.id) ?? 'n=0', ledger.touched.get(n.id) ?? '')]));
-    const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined);
+    // In instrument and date order: the transits are stored in groups of one star over up to 64
+    // nights (transitGroups.ts), so consecutive nights share their groups; in id order (random for
+    // nights logged in Tonight) every chunk would read groups from all over the archive.
+    const stale: NightRecord[] = nights.filter((n) => cache.get(n.id, keys.get(n.id) ?? '') === undefined)
+      .sort((a, b) => (a.instrumentId < b.instrumentId ? -1 : a.instrumentId > b.instrumentId ? 1 : a.localDate < b.localDate ? -1 : a.localDate > b.localDate ? 1 : 0));
     cache.retainOnly(new Set(keys.keys()));
     await kept.keepOnly(new Set(keys.keys()));
     const apriori = { wireSigmaS: DEFAULT_JOINT_MODEL.wireSigmaS, readingSigmaArcsec: DEFAULT_JOINT_MODEL.readingSigmaArcsec };
