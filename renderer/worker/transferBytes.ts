@@ -36,18 +36,26 @@ export function buffersIn(message: unknown, depth: number = SEARCH_DEPTH): Array
  * every other value is the sender's own (postMessage clones it).
  */
 export function withTransferableBytes<T>(message: T, depth: number = SEARCH_DEPTH): { message: T; transfer: ArrayBuffer[] } {
+  return withBytesReplaced(message, depth, (view) => new Uint8Array(view.buffer, view.byteOffset, view.byteLength).slice());
+}
+
+/**
+ * `message` with each byte array replaced by `copyOf(it)` (same content, a buffer of its own) and
+ * those buffers listed to transfer. Only the plain objects on the way to a byte array are rebuilt.
+ */
+function withBytesReplaced<T>(message: T, depth: number, copyOf: (view: ArrayBufferView<ArrayBuffer>) => Uint8Array<ArrayBuffer>): { message: T; transfer: ArrayBuffer[] } {
   const transfer: ArrayBuffer[] = [];
-  const copy = (value: unknown, left: number): unknown => {
+  const rebuild = (value: unknown, left: number): unknown => {
     if (isBytes(value)) {
-      const bytes = new Uint8Array(value.buffer, value.byteOffset, value.byteLength).slice();
+      const bytes = copyOf(value);
       transfer.push(bytes.buffer);
       return value instanceof Uint8Array ? bytes : new (value.constructor as new (buffer: ArrayBuffer) => ArrayBufferView)(bytes.buffer);
     }
     if (left === 0 || value === null || typeof value !== 'object' || Array.isArray(value)) return value;
     if (Object.getPrototypeOf(value) !== Object.prototype || buffersIn(value, left).length === 0) return value;
-    return Object.fromEntries(Object.entries(value).map(([key, inner]) => [key, copy(inner, left - 1)]));
+    return Object.fromEntries(Object.entries(value).map(([key, inner]) => [key, rebuild(inner, left - 1)]));
   };
-  return { message: copy(message, depth) as T, transfer };
+  return { message: rebuild(message, depth) as T, transfer };
 }
 
 /** Bytes copied per step by withTransferableBytesInSteps: one step is a few milliseconds. */
@@ -83,16 +91,5 @@ export async function withTransferableBytesInSteps<T>(message: T, yieldToHost: (
       if (start + COPY_STEP_BYTES < source.length) await yieldToHost();
     }
   }
-  const transfer: ArrayBuffer[] = [];
-  const rebuild = (value: unknown, left: number): unknown => {
-    if (isBytes(value)) {
-      const bytes = copies.get(value) as Uint8Array<ArrayBuffer>;
-      transfer.push(bytes.buffer);
-      return value instanceof Uint8Array ? bytes : new (value.constructor as new (buffer: ArrayBuffer) => ArrayBufferView)(bytes.buffer);
-    }
-    if (left === 0 || value === null || typeof value !== 'object' || Array.isArray(value)) return value;
-    if (Object.getPrototypeOf(value) !== Object.prototype || buffersIn(value, left).length === 0) return value;
-    return Object.fromEntries(Object.entries(value).map(([key, inner]) => [key, rebuild(inner, left - 1)]));
-  };
-  return { message: rebuild(message, depth) as T, transfer };
+  return withBytesReplaced(message, depth, (view) => copies.get(view) as Uint8Array<ArrayBuffer>);
 }
