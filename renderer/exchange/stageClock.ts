@@ -13,10 +13,12 @@ export class StageClock {
     this.#task = task;
   }
 
-  /** Ends the current stage under `name` and starts the next one. */
+  /** Ends the current stage under `name` and starts the next one; a name used again adds to its stage (a loop's parts). */
   lap(name: string): void {
     const now = performance.now();
-    this.#stages.push([name, now - this.#last]);
+    const stage = this.#stages.find(([known]) => known === name);
+    if (stage === undefined) this.#stages.push([name, now - this.#last]);
+    else stage[1] += now - this.#last;
     this.#last = now;
   }
 

@@ -10,6 +10,7 @@ import { ArchiveDatabase } from '../../store/database.ts';
 import { transitsOfNights } from '../../store/transitGroups.ts';
 import { archiveTimeScale } from './archiveTimeScale.ts';
 import { KeptNightQualities } from './keptNightQualities.ts';
+import { StageClock } from '../../exchange/stageClock.ts';
 
 export interface NightQualityRequest {
   readonly kind: 'night-quality';
@@ -104,19 +105,25 @@ export async function runNightQuality(request: NightQualityRequest, control: Tas
     await kept.keepOnly(new Set(keys.keys()));
     const apriori = { wireSigmaS: DEFAULT_JOINT_MODEL.wireSigmaS, readingSigmaArcsec: DEFAULT_JOINT_MODEL.readingSigmaArcsec };
     control.reportProgress(0, stale.length);
+    const clock = new StageClock(`night qualities of ${stale.length} nights`);
     for (let start = 0; start < stale.length; start += NIGHT_QUALITY_CHUNK) {
       await control.yieldToHost();
+      clock.lap('waiting for the host');
       if (control.cancellation.isCancelled) throw new TaskCancelledError('the nightly reductions of the overview', start);
       const chunk = stale.slice(start, start + NIGHT_QUALITY_CHUNK);
       // Only the stale nights' transits are read, through the transit groups' nightIds index.
       const transits = visible(await transitsOfNights(database, chunk.map((n) => n.id)));
+      clock.lap('read transits');
       const results = await reduceStoredNights({
         site: sites[0], instruments, events, stars, nights: chunk, transits,
       }, { timeScale, apriori, keys });
+      clock.lap('reduce');
       for (const result of results) cache.set(result);
       await kept.keep(results);
+      clock.lap('keep');
       control.reportProgress(Math.min(stale.length, start + chunk.length), stale.length);
     }
+    if (stale.length > 0) clock.log();
     return { kind: 'night-quality', reused: nights.length - stale.length, reduced: stale.length, nights: nights.map((n) => cache.get(n.id, keys.get(n.id) ?? '')).filter((q): q is NightQuality => q !== undefined) };
   } finally {
     kept.close();
