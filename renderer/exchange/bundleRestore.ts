@@ -5,8 +5,7 @@ import { TaskCancelledError, UNCONTROLLED, type TaskControl } from '../../core/t
 import { ARCHIVE_SCHEMA_VERSION, type ArchiveDatabase } from '../store/database.ts';
 import { gunzipBytes } from './gzip.ts';
 import { talliesFromRows } from '../store/nightTallies.ts';
-import { archiveTableNames, countTableRows, TRANSITS, writeTableRows } from '../store/archiveTables.ts';
-import { inGroupingOrder } from '../store/transitGroups.ts';
+import { archiveTableNames, countTableRows, inWriteOrder, TRANSITS, writeTableRows } from '../store/archiveTables.ts';
 import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
 
 /** A bundle read whole and verified (header, every table's row count and SHA-256). */
@@ -148,7 +147,7 @@ export async function restoreBundle(database: ArchiveDatabase, bundle: VerifiedB
     requireDistinctTransitIds((bundle.rows.get(TRANSITS) ?? []) as readonly TransitRecord[]);
     for (const [name, asStored] of bundle.rows) {
       if (name === SIMULATION_TRUTH_TABLE) continue; // checked, not restored: the archive keeps no truth
-      const rows = name === TRANSITS ? inGroupingOrder(asStored as readonly TransitRecord[]) : asStored;
+      const rows = inWriteOrder(name, asStored);
       for (let start = 0; start < rows.length; start += RESTORE_CHUNK_ROWS) {
         if (control.cancellation.isCancelled) throw new TaskCancelledError('the restore', done);
         const chunk = rows.slice(start, start + RESTORE_CHUNK_ROWS) as object[];

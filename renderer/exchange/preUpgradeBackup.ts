@@ -8,6 +8,8 @@ import { DERIVED_TABLES } from '../store/nightTallies.ts';
 import { backupFileName, DEFAULT_BACKUP_KEEP } from './automaticBackups.ts';
 import { gzipBlocks } from './gzip.ts';
 import { ByteBlocks } from './bundleExport.ts';
+import { logicalTableName } from '../store/archiveTables.ts';
+import { transitRowsInIdOrder, type TransitGroupRecord } from '../store/transitGroups.ts';
 
 /**
  * A bundle of an archive still at an older schema, read BEFORE the code's schema upgrades it.
@@ -28,9 +30,11 @@ export async function exportOldArchive(name: string, fromSchemaVersion: number, 
     if (old.verno !== fromSchemaVersion) throw new Error(`the archive on disk is at schema ${old.verno}, not ${fromSchemaVersion} as expected`);
     const tables = old.tables.filter((t) => !DERIVED_TABLES.includes(t.name));
     const snapshot = await old.transaction('r', tables, () => Promise.all(tables.map((t) => t.toArray())));
-    const named = tables.map((table, k) => (table.name === GROUPED_TRANSITS
-      ? { name: 'transits', rows: flattenGroups(snapshot[k] as readonly { transits: readonly { id: string }[] }[]) }
-      : { name: table.name, rows: snapshot[k] })).sort((a, b) => a.name.localeCompare(b.name));
+    const named = tables.map((table, k) => {
+      // A stored table under another name holds the transits in groups (schema 4 on): written as rows.
+      const name = logicalTableName(table.name);
+      return { name, rows: name !== table.name ? transitRowsInIdOrder(snapshot[k] as TransitGroupRecord[]) : snapshot[k] };
+    }).sort((a, b) => a.name.localeCompare(b.name));
     const writer = new BundleWriter({ schemaVersion: fromSchemaVersion, createdUtc, producer });
     const blocks = new ByteBlocks();
     blocks.push(encodeUtf8(writer.start()));
@@ -43,14 +47,6 @@ export async function exportOldArchive(name: string, fromSchemaVersion: number, 
   } finally {
     old.close();
   }
-}
-
-/** The table that holds transits in groups from schema 4 on (renderer/store/transitGroups.ts). */
-const GROUPED_TRANSITS = 'transitGroups';
-
-/** The transit rows of stored groups, in id order. */
-function flattenGroups(groups: readonly { transits: readonly { id: string }[] }[]): unknown[] {
-  return groups.flatMap((g) => g.transits).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
 }
 
 /** Called by openArchive when the archive on disk is older than the code; a failure stops the upgrade. */

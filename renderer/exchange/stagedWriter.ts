@@ -5,19 +5,10 @@ import type { ArchiveDatabase } from '../store/database.ts';
 import { IMPORTABLE_TABLES } from '../store/importStaging.ts';
 import { addToNightTallies, recountNightTallies } from '../store/nightTallies.ts';
 import type { NightRecord, TransitRecord } from '../../core/archive/records.ts';
-import { storedTable } from '../store/archiveTables.ts';
-import { addTransits, inGroupingOrder, removeTransitsOfImport, replaceTransits } from '../store/transitGroups.ts';
+import { inWriteOrder, storedTable, writeTableRows } from '../store/archiveTables.ts';
+import { removeTransitsOfImport, replaceTransits } from '../store/transitGroups.ts';
 
 export type ImportableTableName = (typeof IMPORTABLE_TABLES)[number];
-
-/**
- * Writes new rows of one table; transits go into groups (transitGroups.ts, whose bulkAdd a test
- * hook may patch), every other table row by row.
- */
-async function writeCreated(database: ArchiveDatabase, name: ImportableTableName, rows: readonly object[]): Promise<void> {
-  if (name === 'transits') await addTransits(database, rows as readonly TransitRecord[]);
-  else await (database[name] as unknown as Table).bulkPut(rows as object[]);
-}
 
 /** Replaces stored rows of one table by new versions with the same ids. */
 async function writeUpdated(database: ArchiveDatabase, name: ImportableTableName, rows: readonly object[]): Promise<void> {
@@ -85,12 +76,12 @@ export async function writeImport(
       await requireStaging(database, importId);
       let done = 0;
       for (const table of IMPORTABLE_TABLES) {
-        const asPlanned = writes.created[table] ?? [];
-        const rows = table === 'transits' ? inGroupingOrder(asPlanned as readonly TransitRecord[]) : asPlanned;
+        const rows = inWriteOrder(table, writes.created[table] ?? []) as readonly object[];
         for (let start = 0; start < rows.length; start += chunkRows) {
           if (control.cancellation.isCancelled) throw new TaskCancelledError('the import', done);
           const chunk = rows.slice(start, start + chunkRows).map((row) => ({ ...row, visibility: 'visible', importId }));
-          await writeCreated(database, table, chunk);
+          // Transits go into groups (transitGroups.ts, whose bulkAdd a test hook may patch).
+          await writeTableRows(database, table, chunk);
           done += chunk.length;
           control.reportProgress(done, total);
           if ((options.chunkPauseMs ?? 0) > 0) await holdOpen(database, importId, options.chunkPauseMs as number);

@@ -2,7 +2,7 @@ import type { Table } from 'dexie';
 import type { TransitRecord } from '../../core/archive/records.ts';
 import type { ArchiveDatabase } from './database.ts';
 import { DERIVED_TABLES } from './nightTallies.ts';
-import { addTransits, allTransits } from './transitGroups.ts';
+import { addTransits, allTransits, inGroupingOrder } from './transitGroups.ts';
 
 /**
  * The archive's tables as bundles, CSV exports and imports name them, over how IndexedDB stores
@@ -16,9 +16,22 @@ export const TRANSITS = 'transits';
 const STORED_IN: Readonly<Record<string, string>> = { [TRANSITS]: 'transitGroups' };
 const LOGICAL_OF: Readonly<Record<string, string>> = Object.fromEntries(Object.entries(STORED_IN).map(([logical, stored]) => [stored, logical]));
 
+/** The logical name of the stored table `stored` (`transitGroups` → `transits`; others as they are). */
+export function logicalTableName(stored: string): string {
+  return LOGICAL_OF[stored] ?? stored;
+}
+
 /** The logical table names, in the order of the database's tables (derived ones left out). */
 export function archiveTableNames(database: ArchiveDatabase): string[] {
-  return database.tables.map((t) => LOGICAL_OF[t.name] ?? t.name).filter((name) => !DERIVED_TABLES.includes(name));
+  return database.tables.map((t) => logicalTableName(t.name)).filter((name) => !DERIVED_TABLES.includes(name));
+}
+
+/**
+ * `rows` of logical table `name` in the order to write them in chunks: transits star by star in
+ * time order (inGroupingOrder), so each chunk makes full groups; other tables as they are.
+ */
+export function inWriteOrder(name: string, rows: readonly unknown[]): readonly unknown[] {
+  return name === TRANSITS ? inGroupingOrder(rows as readonly TransitRecord[]) : rows;
 }
 
 /** The Dexie table that stores logical table `name` (for a transaction's scope). */

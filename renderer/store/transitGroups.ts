@@ -108,9 +108,23 @@ function flatten(groups: readonly TransitGroupRecord[], keep: (t: TransitRecord)
   return out;
 }
 
-function distinct(groups: readonly TransitGroupRecord[]): TransitGroupRecord[] {
-  const seen = new Set<string>();
-  return groups.filter((g) => !seen.has(g.id) && (seen.add(g.id), true));
+/**
+ * The transit rows of `groups`, in id order: the order a table of rows keyed by id gave before
+ * version 4, so exports and bundles list transits as they always did. Pure.
+ */
+export function transitRowsInIdOrder(groups: readonly Pick<TransitGroupRecord, 'transits'>[]): TransitRecord[] {
+  return flatten(groups as readonly TransitGroupRecord[]).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+}
+
+/** The groups holding a transit one import wrote (the multi-entry index lists each group once per key, here one). */
+function groupsOfImport(database: ArchiveDatabase, importId: string): Promise<TransitGroupRecord[]> {
+  return database.transitGroups.where('importIds').equals(importId).toArray();
+}
+
+/** Writes back the groups an edit changed and deletes those it left empty. */
+async function writeBack(database: ArchiveDatabase, changed: readonly TransitGroupRecord[], emptied: readonly string[]): Promise<void> {
+  if (changed.length > 0) await database.transitGroups.bulkPut([...changed]);
+  if (emptied.length > 0) await database.transitGroups.bulkDelete([...emptied]);
 }
 
 /**
@@ -126,17 +140,14 @@ async function groupsOfNights(database: ArchiveDatabase, nightIds: readonly stri
   return groups.filter((g): g is TransitGroupRecord => g !== undefined);
 }
 
-/**
- * Every stored transit (visible or not), in id order: the order a table of rows keyed by id gave
- * before version 4, so exports and bundles list transits as they always did.
- */
+/** Every stored transit (visible or not), in id order (transitRowsInIdOrder). */
 export async function allTransits(database: ArchiveDatabase): Promise<TransitRecord[]> {
-  return flatten(await database.transitGroups.toArray()).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+  return transitRowsInIdOrder(await database.transitGroups.toArray());
 }
 
 /** The stored transits of one night (visible or not), ascending utcMjd. */
 export async function transitsOfNight(database: ArchiveDatabase, nightId: string): Promise<TransitRecord[]> {
-  return (await transitsOfNights(database, [nightId])).sort(byTime);
+  return flatten(await groupsOfNights(database, [nightId]), (t) => t.nightId === nightId).sort(byTime);
 }
 
 /**
@@ -173,13 +184,7 @@ export async function transitCountsByStar(database: ArchiveDatabase): Promise<Ma
 
 /** The stored transits one import wrote (visible or not). */
 export async function transitsOfImport(database: ArchiveDatabase, importId: string): Promise<TransitRecord[]> {
-  const groups = await database.transitGroups.where('importIds').equals(importId).toArray();
-  return flatten(groups, (t) => t.importId === importId);
-}
-
-/** Whether the archive stores any transit. */
-export async function holdsAnyTransit(database: ArchiveDatabase): Promise<boolean> {
-  return (await database.transitGroups.limit(1).count()) > 0;
+  return flatten(await groupsOfImport(database, importId), (t) => t.importId === importId);
 }
 
 /** The stored transit with this id, looked up in its night; undefined when there is none. */
@@ -254,33 +259,31 @@ export async function replaceTransits(database: ArchiveDatabase, transits: reado
   }
   const missing = transits.filter((t) => !found.has(t.id));
   if (missing.length > 0) throw new Error(`transitGroups: no stored transit with id "${missing[0].id}" in night "${missing[0].nightId}" (${missing.length} not found); nothing was changed`);
-  if (changed.length > 0) await database.transitGroups.bulkPut(changed);
-  if (emptied.length > 0) await database.transitGroups.bulkDelete(emptied);
+  await writeBack(database, changed, emptied);
   for (const t of moved) await addTransit(database, t);
 }
 
 /**
- * Removes the stored transits of `groups` that `remove` picks (groups left empty are deleted);
- * returns the removed transits.
+ * Removes the stored transits of `groups` (each once) that `remove` picks (groups left empty are
+ * deleted); returns the removed transits.
  */
 async function removeFrom(database: ArchiveDatabase, groups: readonly TransitGroupRecord[], remove: (t: TransitRecord) => boolean): Promise<TransitRecord[]> {
   const removed: TransitRecord[] = [];
   const changed: TransitGroupRecord[] = [];
   const emptied: string[] = [];
-  for (const group of distinct(groups)) {
+  for (const group of groups) {
     const kept = group.transits.filter((t) => !remove(t) || (removed.push(t), false));
     if (kept.length === group.transits.length) continue;
     if (kept.length === 0) emptied.push(group.id);
     else changed.push(groupOf(kept, group.id));
   }
-  if (changed.length > 0) await database.transitGroups.bulkPut(changed);
-  if (emptied.length > 0) await database.transitGroups.bulkDelete(emptied);
+  await writeBack(database, changed, emptied);
   return removed;
 }
 
 /** Removes the transits an import wrote that `remove` picks (all of them by default); returns them. */
 export async function removeTransitsOfImport(database: ArchiveDatabase, importId: string, remove: (t: TransitRecord) => boolean = () => true): Promise<TransitRecord[]> {
-  const groups = await database.transitGroups.where('importIds').equals(importId).toArray();
+  const groups = await groupsOfImport(database, importId);
   return removeFrom(database, groups, (t) => t.importId === importId && remove(t));
 }
 
@@ -327,7 +330,7 @@ export async function upgradeToV4(transaction: Transaction, onProgress: (done: n
 
 /** Rewrites the transits an import wrote through `change` (same id, star and time); returns how many. */
 export async function changeTransitsOfImport(database: ArchiveDatabase, importId: string, change: (t: TransitRecord) => TransitRecord): Promise<number> {
-  const groups = await database.transitGroups.where('importIds').equals(importId).toArray();
+  const groups = await groupsOfImport(database, importId);
   let count = 0;
   const changed = groups.map((g) => groupOf(g.transits.map((t) => (t.importId === importId ? (count++, change(t)) : t)), g.id));
   if (changed.length > 0) await database.transitGroups.bulkPut(changed);
